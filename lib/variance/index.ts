@@ -1,0 +1,6 @@
+export * from "./types";
+export { lineVariance, vehicleVariance } from "./variance";
+export { fleetVariance, varianceStatus, costToClose } from "./fleet";
+export type { FleetVariance, FleetVehicleInput, FleetVehicleResult, ShareOfFleet } from "./fleet";
+export { evaluateCriterion, valuesEqual, normaliseText, asNumber, NOT_RECORDED } from "./criteria";
+export type { CriterionResult } from "./criteria";
