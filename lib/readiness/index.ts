@@ -1,0 +1,21 @@
+export {
+  tripReadiness,
+  describeCriterion,
+  CRITICAL_CATEGORIES,
+  DEFAULT_SOON_DAYS,
+  DEFECT_SEVERITIES,
+  LIMITED_ROADS,
+  VEHICLE_STATES,
+} from "./readiness";
+export type {
+  DefectSeverity,
+  ExpiringItem,
+  OpenDefect,
+  ReadinessReason,
+  ReadinessState,
+  ReasonCode,
+  ReasonSeverity,
+  TripReadiness,
+  TripReadinessInput,
+  VehicleState,
+} from "./readiness";
