@@ -38,3 +38,4 @@ export {
   type WeighbridgeTolerance,
   reconcileWeighbridge,
 } from "./weighbridge";
+export { type VehicleMassApiInput, vehicleMassInputSchema } from "./vehicleMassSchema";
