@@ -2,7 +2,7 @@ import { describe, expect, it } from "vitest";
 import { InputError } from "@/lib/errors";
 import { vehicleMass, type PlatformMassFigures, type VehicleMassInput, type VehicleMassResult } from "@/lib/mass";
 
-// Invented platform "Karri Ridge 4x4 wagon": every figure made up for the tests.
+// Invented platform "Tarnby Ridge wagon": every figure made up for the tests.
 const platform: PlatformMassFigures = {
   wheelbaseMm: 3000,
   kerbMassKg: 2150,
