@@ -150,7 +150,7 @@ function checkInput(input: TripReadinessInput): number {
   if (!(input.now instanceof Date) || !Number.isFinite(input.now.getTime())) {
     throw new InputError("now", "now must be a valid date");
   }
-  if (!Array.isArray(input.openDefects)) throw new InputError("openDefects", "openDefects must be a list");
+  if (!Array.isArray(input.openDefects as unknown)) throw new InputError("openDefects", "openDefects must be a list");
   input.openDefects.forEach((d, i) => {
     if (d === null || typeof d !== "object") throw new InputError(`openDefects.${i}`, "a defect is required");
     if (!(DEFECT_SEVERITIES as readonly string[]).includes(d.severity)) {
@@ -160,7 +160,7 @@ function checkInput(input: TripReadinessInput): number {
       throw new InputError(`openDefects.${i}.title`, "a defect needs a title");
     }
   });
-  if (!Array.isArray(input.expiringItems)) throw new InputError("expiringItems", "expiringItems must be a list");
+  if (!Array.isArray(input.expiringItems as unknown)) throw new InputError("expiringItems", "expiringItems must be a list");
   input.expiringItems.forEach((item, i) => {
     if (item === null || typeof item !== "object") throw new InputError(`expiringItems.${i}`, "an item is required");
     if (typeof item.label !== "string" || item.label.trim() === "") {

@@ -112,7 +112,7 @@ function checkVariance(field: string, v: unknown): asserts v is VehicleVariance 
 }
 
 export function fleetVariance(vehicles: readonly FleetVehicleInput[]): FleetVariance {
-  if (!Array.isArray(vehicles)) throw new InputError("vehicles", "vehicles must be a list");
+  if (!Array.isArray(vehicles as unknown)) throw new InputError("vehicles", "vehicles must be a list");
   const overall = emptyShare();
   const byDepot = new Map<string | null, ShareOfFleet>();
   const byPlatform = new Map<string | null, ShareOfFleet>();

@@ -4,3 +4,4 @@ export { fleetVariance, varianceStatus, costToClose } from "./fleet";
 export type { FleetVariance, FleetVehicleInput, FleetVehicleResult, ShareOfFleet } from "./fleet";
 export { evaluateCriterion, valuesEqual, normaliseText, asNumber, NOT_RECORDED } from "./criteria";
 export type { CriterionResult } from "./criteria";
+export { checkLine as checkEditionLine, checkFitment, checkConcession } from "./validate";

@@ -158,8 +158,8 @@ export function lineVariance(
 ): LineVariance {
   requireDate("now", now);
   checkLine("line", line);
-  if (!Array.isArray(fitments)) throw new InputError("fitments", "fitments must be a list");
-  if (!Array.isArray(concessions)) throw new InputError("concessions", "concessions must be a list");
+  if (!Array.isArray(fitments as unknown)) throw new InputError("fitments", "fitments must be a list");
+  if (!Array.isArray(concessions as unknown)) throw new InputError("concessions", "concessions must be a list");
   const own: Fitment[] = [];
   fitments.forEach((f, i) => {
     checkFitment(`fitments.${i}`, f);
@@ -236,9 +236,9 @@ export function vehicleVariance(input: VehicleVarianceInput): VehicleVariance {
   if (input === null || typeof input !== "object") throw new InputError("input", "input is required");
   const { lines, fitments, concessions, now } = input;
   requireDate("now", now);
-  if (!Array.isArray(lines)) throw new InputError("lines", "lines must be a list");
-  if (!Array.isArray(fitments)) throw new InputError("fitments", "fitments must be a list");
-  if (!Array.isArray(concessions)) throw new InputError("concessions", "concessions must be a list");
+  if (!Array.isArray(lines as unknown)) throw new InputError("lines", "lines must be a list");
+  if (!Array.isArray(fitments as unknown)) throw new InputError("fitments", "fitments must be a list");
+  if (!Array.isArray(concessions as unknown)) throw new InputError("concessions", "concessions must be a list");
   const nowMs = now.getTime();
 
   const edition = checkedEdition(lines);
