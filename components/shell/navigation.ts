@@ -1,0 +1,22 @@
+import type { Action, AppAbility, Role, Subject } from "@/lib/permissions";
+
+export type NavItem = { href: string; label: string; need: readonly [Action, Subject]; roles?: Role[]; devOnly?: boolean };
+
+/** The app's navigation; each role sees the items its permissions allow. */
+export const NAV_ITEMS: NavItem[] = [
+  { href: "/vehicles", label: "Vehicles", need: ["read", "Vehicle"] },
+  { href: "/admin/users", label: "People", need: ["read", "User"] },
+  { href: "/admin/depots", label: "Depots", need: ["read", "Depot"], roles: ["admin", "manager", "finance"] },
+  { href: "/admin/firms", label: "Workshops", need: ["read", "Firm"] },
+  { href: "/admin/settings", label: "Settings", need: ["read", "OrgSettings"] },
+  { href: "/admin/mailbox", label: "Mailbox", need: ["read", "DevMailbox"], devOnly: true },
+];
+
+export function navFor(ability: AppAbility, role: Role, production: boolean): NavItem[] {
+  return NAV_ITEMS.filter(
+    (item) =>
+      ability.can(item.need[0], item.need[1]) &&
+      (!item.roles || item.roles.includes(role)) &&
+      !(item.devOnly && production),
+  );
+}

@@ -1,0 +1,31 @@
+import { and, eq, inArray, or, sql, type SQL } from "drizzle-orm";
+import type { Actor } from "@/lib/permissions";
+import { jobOffers, jobs, vehicleDrivers, vehicles } from "./schema";
+
+/**
+ * The vehicles a user may see: always inside their organisation; a driver only the vehicles
+ * assigned to them; a contractor only the vehicles of jobs offered or awarded to their firm.
+ */
+export function vehicleScope(actor: Actor): SQL {
+  const inOrg = eq(vehicles.orgId, actor.orgId);
+  if (actor.role === "driver") {
+    return and(
+      inOrg,
+      inArray(vehicles.id, sql`(select ${vehicleDrivers.vehicleId} from ${vehicleDrivers} where ${vehicleDrivers.userId} = ${actor.userId})`),
+    )!;
+  }
+  if (actor.role === "contractor") {
+    const firm = actor.firmId ?? "__none__";
+    return and(
+      inOrg,
+      or(
+        inArray(
+          vehicles.id,
+          sql`(select ${jobs.vehicleId} from ${jobs} join ${jobOffers} on ${jobOffers.jobId} = ${jobs.id} where ${jobOffers.firmId} = ${firm} and ${jobs.orgId} = ${actor.orgId})`,
+        ),
+        inArray(vehicles.id, sql`(select ${jobs.vehicleId} from ${jobs} where ${jobs.awardedFirmId} = ${firm} and ${jobs.orgId} = ${actor.orgId})`),
+      ),
+    )!;
+  }
+  return inOrg;
+}
