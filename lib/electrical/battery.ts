@@ -156,7 +156,7 @@ export function batteryPlan(input: BatteryPlanInput): BatteryPlanResult {
   const inverterEfficiency = input.inverterEfficiency ?? DEFAULT_INVERTER_EFFICIENCY;
   requirePositive("inverterEfficiency", inverterEfficiency);
   if (inverterEfficiency > 1) throw new InputError("inverterEfficiency", "inverterEfficiency must be at most 1");
-  if (!Array.isArray(input.consumers) || input.consumers.length === 0) {
+  if (!Array.isArray(input.consumers as unknown) || input.consumers.length === 0) {
     throw new InputError("consumers", "add at least one consumer");
   }
 

@@ -90,7 +90,7 @@ export function rechargeTime(input: RechargeInput): RechargeResult {
   const solarDerating = input.solarDerating ?? SOLAR_DERATING;
   requirePositive("solarDerating", solarDerating);
   if (solarDerating > 1) throw new InputError("solarDerating", "solarDerating must be at most 1");
-  if (!Array.isArray(input.sources) || input.sources.length === 0) {
+  if (!Array.isArray(input.sources as unknown) || input.sources.length === 0) {
     throw new InputError("sources", "add at least one charging source");
   }
 

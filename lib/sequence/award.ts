@@ -65,7 +65,7 @@ function missingFor(graph: LineGraph, node: GraphNode, included: Set<string>): M
 export function canAward(lineIds: readonly string[], lines: readonly SequenceLine[]): AwardCheck {
   const graph = buildGraph(lines);
   assertAcyclic(graph);
-  if (!Array.isArray(lineIds)) throw new InputError("lineIds", "lineIds must be a list of line ids");
+  if (!Array.isArray(lineIds as unknown)) throw new InputError("lineIds", "lineIds must be a list of line ids");
   lineIds.forEach((id, position) => {
     if (typeof id !== "string" || !graph.byId.has(id)) {
       throw new InputError(`lineIds.${position}`, `unknown line "${String(id)}"`);

@@ -22,7 +22,7 @@ export function refOf(node: GraphNode): LineRef {
 
 /** Checks the lines and indexes them; every fault names the line and field at fault. */
 export function buildGraph(lines: readonly SequenceLine[]): LineGraph {
-  if (!Array.isArray(lines)) throw new InputError("lines", "lines must be a list");
+  if (!Array.isArray(lines as unknown)) throw new InputError("lines", "lines must be a list");
   const nodes: GraphNode[] = [];
   const byId = new Map<string, GraphNode>();
   lines.forEach((line, index) => {
@@ -34,12 +34,12 @@ export function buildGraph(lines: readonly SequenceLine[]): LineGraph {
       throw new InputError(`${at}.label`, "label is required");
     }
     if (typeof line.met !== "boolean") throw new InputError(`${at}.met`, "met must be true or false");
-    if (!Array.isArray(line.dependsOn)) throw new InputError(`${at}.dependsOn`, "dependsOn must be a list of line ids");
+    if (!Array.isArray(line.dependsOn as unknown)) throw new InputError(`${at}.dependsOn`, "dependsOn must be a list of line ids");
     const kind = line.kind ?? "fitting";
     if (!LINE_KINDS.includes(kind)) {
       throw new InputError(`${at}.kind`, `kind must be one of ${LINE_KINDS.join(", ")}`);
     }
-    const node: GraphNode = { index, line, kind, dependsOn: [...new Set<string>(line.dependsOn)] };
+    const node: GraphNode = { index, line, kind, dependsOn: [...new Set(line.dependsOn)] };
     nodes.push(node);
     byId.set(line.id, node);
   });
