@@ -149,7 +149,9 @@ export function batteryPlan(input: BatteryPlanInput): BatteryPlanResult {
   if (daysAutonomy > MAX_DAYS_AUTONOMY) {
     throw new InputError("daysAutonomy", `daysAutonomy must be at most ${MAX_DAYS_AUTONOMY}`);
   }
-  const depth = USABLE_DEPTH_OF_DISCHARGE[input.chemistry];
+  const depth = Object.hasOwn(USABLE_DEPTH_OF_DISCHARGE, input.chemistry)
+    ? USABLE_DEPTH_OF_DISCHARGE[input.chemistry]
+    : undefined;
   if (depth === undefined) {
     throw new InputError("chemistry", 'chemistry must be "lead-acid", "agm" or "lithium-iron-phosphate"');
   }

@@ -93,7 +93,7 @@ export function cableRun(input: CableRunInput): CableRunResult {
   requirePositive("systemV", systemV);
   if (input.areaMm2 !== undefined) requirePositive("areaMm2", input.areaMm2);
   if (input.temperatureC !== undefined) requireConductorTemperature("temperatureC", input.temperatureC);
-  if (input.circuit !== undefined && !(input.circuit in MAX_DROP_PCT_BY_CIRCUIT)) {
+  if (input.circuit !== undefined && !Object.hasOwn(MAX_DROP_PCT_BY_CIRCUIT, input.circuit)) {
     throw new InputError("circuit", 'circuit must be "critical" or "other"');
   }
   const series: SizeSeries = input.sizeSeries ?? "metric";

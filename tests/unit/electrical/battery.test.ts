@@ -113,6 +113,9 @@ describe("batteryPlan", () => {
       InputError,
     );
     expect(() => batteryPlan({ ...base, consumers: fridgeOnly, daysAutonomy: 0 })).toThrow(InputError);
+    expect(() =>
+      batteryPlan({ ...base, consumers: fridgeOnly, chemistry: "toString" as "agm" }),
+    ).toThrow(expect.objectContaining({ field: "chemistry" }));
   });
 
   it("the schema mirrors the same rules", () => {

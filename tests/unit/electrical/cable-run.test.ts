@@ -105,6 +105,9 @@ describe("cableRun", () => {
       expect.objectContaining({ field: "lengthOneWayM" }),
     );
     expect(() => cableRun({ currentA: 0, lengthOneWayM: 1, systemV: 12 })).toThrow(InputError);
+    expect(() => cableRun({ currentA: 5, lengthOneWayM: 1, systemV: 12, circuit: "toString" as "other" })).toThrow(
+      expect.objectContaining({ field: "circuit" }),
+    );
     expect(() => cableRun({ currentA: 5, lengthOneWayM: 1, systemV: 12, maxDropPct: 0 })).toThrow(InputError);
   });
 
