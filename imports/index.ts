@@ -30,3 +30,18 @@ export {
   type HeaderMatch,
   type DuplicateClaim,
 } from "./headers";
+export {
+  validateRows,
+  makeVehicleRowSchema,
+  vehicleRowSchema,
+  vehicleImportMappingSchema,
+  vehicleStateSchema,
+  type VehicleRowValues,
+  type VehicleRowInput,
+  type RowContext,
+  type ValidRow,
+  type RowError,
+  type RowValidation,
+  type ValidateOptions,
+} from "./vehicle-row";
+export { checkVinShape, VIN_LENGTH, type VinShape } from "./vin-shape";
