@@ -87,6 +87,63 @@ function isScalar(value: unknown): value is number | string {
 export type CriterionResult = { pass: true } | { pass: false; actual: number | string };
 
 /**
+ * A checked criterion with its limits read once (numbers parsed, text normalised), so judging a
+ * fleet does not re-parse the same edition's criteria for every vehicle.
+ */
+export type CompiledCriterion = {
+  criterion: Criterion;
+  lo: number;
+  hi: number;
+  /** For eq and one_of: each expected value as a number (or null) and as normalised text. */
+  options: { num: number | null; text: string }[];
+};
+
+export function compileCriterion(criterion: Criterion): CompiledCriterion {
+  const { op, value } = criterion;
+  let lo = -Infinity;
+  let hi = Infinity;
+  let options: CompiledCriterion["options"] = [];
+  if (op === "gte") lo = asNumber(value) ?? Infinity;
+  else if (op === "lte") hi = asNumber(value) ?? -Infinity;
+  else if (op === "between" && Array.isArray(value)) {
+    lo = asNumber(value[0]) ?? Infinity;
+    hi = asNumber(value[1]) ?? -Infinity;
+  } else {
+    const list = Array.isArray(value) ? value : [value];
+    options = list.map((v) => ({ num: asNumber(v), text: normaliseText(String(v)) }));
+  }
+  return { criterion, lo, hi, options };
+}
+
+const PASS: CriterionResult = Object.freeze({ pass: true });
+
+/** evaluateCriterion for a compiled criterion (same rules, no re-parsing). */
+export function evaluateCompiled(
+  compiled: CompiledCriterion,
+  attributes: Readonly<Record<string, number | string>>,
+): CriterionResult {
+  const name = compiled.criterion.attribute;
+  const raw = Object.hasOwn(attributes, name) ? attributes[name] : undefined;
+  if (raw === undefined || raw === null || (typeof raw === "string" && raw.trim() === "")) {
+    return { pass: false, actual: NOT_RECORDED };
+  }
+  if (typeof raw === "number" && !Number.isFinite(raw)) return { pass: false, actual: String(raw) };
+  const op = compiled.criterion.op;
+  if (op === "gte" || op === "lte" || op === "between") {
+    const a = typeof raw === "number" ? raw : asNumber(raw);
+    return a !== null && a >= compiled.lo && a <= compiled.hi ? PASS : { pass: false, actual: raw };
+  }
+  const a = typeof raw === "number" ? raw : asNumber(raw);
+  let text: string | undefined;
+  for (const o of compiled.options) {
+    if (a !== null && o.num !== null) {
+      if (a === o.num) return PASS;
+    } else if ((text ??= normaliseText(String(raw))) === o.text) return PASS;
+  }
+  return { pass: false, actual: raw };
+}
+
+/**
  * Whether one fitment's attributes pass one (already checked) criterion. On a fail, `actual`
  * is the recorded value, or "not recorded".
  */
@@ -94,34 +151,5 @@ export function evaluateCriterion(
   criterion: Criterion,
   attributes: Readonly<Record<string, number | string>>,
 ): CriterionResult {
-  const raw = Object.prototype.hasOwnProperty.call(attributes, criterion.attribute)
-    ? attributes[criterion.attribute]
-    : undefined;
-  if (raw === undefined || raw === null || (typeof raw === "string" && raw.trim() === "")) {
-    return { pass: false, actual: NOT_RECORDED };
-  }
-  if (typeof raw === "number" && !Number.isFinite(raw)) return { pass: false, actual: String(raw) };
-  const fail = { pass: false as const, actual: raw };
-  const { op, value } = criterion;
-  switch (op) {
-    case "gte":
-    case "lte": {
-      const a = asNumber(raw);
-      const limit = asNumber(value);
-      if (a === null || limit === null) return fail;
-      return (op === "gte" ? a >= limit : a <= limit) ? { pass: true } : fail;
-    }
-    case "between": {
-      const a = asNumber(raw);
-      const [loRaw, hiRaw] = value as (number | string)[];
-      const lo = asNumber(loRaw);
-      const hi = asNumber(hiRaw);
-      if (a === null || lo === null || hi === null) return fail;
-      return a >= lo && a <= hi ? { pass: true } : fail;
-    }
-    case "eq":
-      return valuesEqual(raw, value as number | string) ? { pass: true } : fail;
-    case "one_of":
-      return (value as (number | string)[]).some((v) => valuesEqual(raw, v)) ? { pass: true } : fail;
-  }
+  return evaluateCompiled(compileCriterion(criterion), attributes);
 }

@@ -1,5 +1,5 @@
 import { InputError } from "@/lib/errors";
-import { evaluateCriterion } from "./criteria";
+import { compileCriterion, evaluateCompiled, type CompiledCriterion } from "./criteria";
 import type {
   Concession,
   EditionLine,
@@ -58,6 +58,7 @@ function hasAccepted(f: Fitment, kind: EvidenceKind): boolean {
 /** Judges one checked line from its own (checked) fitments and concessions. */
 function judgeLine(
   line: EditionLine,
+  criteria: readonly CompiledCriterion[],
   lineFitments: readonly Fitment[],
   lineConcessions: readonly Concession[],
   nowMs: number,
@@ -92,9 +93,9 @@ function judgeLine(
     if (currentCount > 0 && (line.criteria.length > 0 || line.evidenceNeeded.length > 0)) {
       for (const f of lineFitments) {
         if (!counts(f, nowMs) || expired(f, nowMs)) continue;
-        for (const criterion of line.criteria) {
-          const r = evaluateCriterion(criterion, f.attributes);
-          if (!r.pass) (failing ??= []).push({ criterion, actual: r.actual, fitmentId: f.id });
+        for (const compiled of criteria) {
+          const r = evaluateCompiled(compiled, f.attributes);
+          if (!r.pass) (failing ??= []).push({ criterion: compiled.criterion, actual: r.actual, fitmentId: f.id });
         }
         for (const kind of line.evidenceNeeded) {
           if (evidenceMissing?.includes(kind)) continue;
@@ -170,7 +171,7 @@ export function lineVariance(
     checkConcession(`concessions.${i}`, c);
     if (c.lineId === line.id) ownConcessions.push(c);
   });
-  return judgeLine(line, own, ownConcessions, now.getTime());
+  return judgeLine(line, line.criteria.map(compileCriterion), own, ownConcessions, now.getTime());
 }
 
 export function emptySummary(): VarianceSummary {
@@ -206,7 +207,12 @@ export function countStatus(summary: VarianceSummary, status: LineStatus): void 
 // A fleet run passes the same edition's lines array for every vehicle: check it once. The cache
 // holds each line object and its id, so a changed array or a swapped line is checked again
 // (lines are read as frozen, like a published edition, between calls).
-type CheckedEdition = { lines: EditionLine[]; ids: string[]; indexOf: Map<string, number> };
+type CheckedEdition = {
+  lines: EditionLine[];
+  ids: string[];
+  indexOf: Map<string, number>;
+  criteria: CompiledCriterion[][];
+};
 const checkedEditions = new WeakMap<readonly EditionLine[], CheckedEdition>();
 const NONE: readonly never[] = Object.freeze([]);
 
@@ -226,7 +232,12 @@ function checkedEdition(lines: readonly EditionLine[]): CheckedEdition {
     if (indexOf.has(line.id)) throw new InputError(`lines.${i}.id`, `line id ${line.id} appears twice`);
     indexOf.set(line.id, i);
   });
-  const checked = { lines: [...lines], ids: lines.map((l) => l.id), indexOf };
+  const checked = {
+    lines: [...lines],
+    ids: lines.map((l) => l.id),
+    indexOf,
+    criteria: lines.map((l) => l.criteria.map(compileCriterion)),
+  };
   checkedEditions.set(lines, checked);
   return checked;
 }
@@ -274,7 +285,7 @@ export function vehicleVariance(input: VehicleVarianceInput): VehicleVariance {
   const summary = emptySummary();
   const results: LineVariance[] = new Array(lines.length);
   for (let i = 0; i < lines.length; i++) {
-    const r = judgeLine(lines[i] as EditionLine, byLine[i] ?? NONE, concessionsByLine?.[i] ?? NONE, nowMs);
+    const r = judgeLine(lines[i] as EditionLine, edition.criteria[i] ?? NONE, byLine[i] ?? NONE, concessionsByLine?.[i] ?? NONE, nowMs);
     countStatus(summary, r.status);
     results[i] = r;
   }

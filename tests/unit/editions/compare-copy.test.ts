@@ -21,6 +21,7 @@ const first: EditionLine[] = [
 
 describe("copyEditionLines", () => {
   it("gives fresh ids, keeps keys and remaps dependsOn to the new ids", () => {
+    // Rigline rule.
     const copy = copyEditionLines(first, counter("b"));
     expect(copy.map((l) => l.id)).toEqual(["b-1", "b-2", "b-3", "b-4"]);
     expect(copy.map((l) => l.key)).toEqual(first.map((l) => l.key));
@@ -30,6 +31,7 @@ describe("copyEditionLines", () => {
   });
 
   it("shares nothing with the source", () => {
+    // Rigline rule.
     const copy = copyEditionLines(first, counter("c"));
     copy[0]!.criteria[0]!.value = 121;
     copy[0]!.evidenceNeeded.push("weighbridge_ticket");
@@ -40,6 +42,7 @@ describe("copyEditionLines", () => {
   });
 
   it("refuses an id generator that repeats or reuses a source id", () => {
+    // Rigline rule.
     expect(() => copyEditionLines(first, () => "same")).toThrow(/twice/);
     const ids = ["a1", "x2", "x3", "x4"];
     expect(() => copyEditionLines(first, () => ids.shift() ?? "")).toThrow(InputError);
@@ -47,6 +50,7 @@ describe("copyEditionLines", () => {
   });
 
   it("refuses a dependency on a line not in the edition", () => {
+    // Rigline rule.
     const bad = [...first, line({ id: "a5", key: "k-x", dependsOn: ["zz"] })];
     expect(() => copyEditionLines(bad, counter("d"))).toThrow(/lines\.4\.dependsOn\.0|not a line of this edition/);
   });
@@ -54,12 +58,14 @@ describe("copyEditionLines", () => {
 
 describe("compareEditions", () => {
   it("a plain copy is all unchanged, although every id differs", () => {
+    // Rigline rule.
     // dependsOn compared by keys: a3 → a2 and b-3 → b-2 both mean k-winch → k-bar.
     const r = compareEditions(first, copyEditionLines(first, counter("b")));
     expect(r.counts).toEqual({ added: 0, removed: 0, changed: 0, unchanged: 4 });
   });
 
   it("lists added, removed and changed lines with each field before → after", () => {
+    // Rigline rule.
     const next = copyEditionLines(first, counter("b"));
     // b-1 tyres: load index 116 → 121 and cost 10 000 → 12 500 c.
     next[0] = { ...next[0]!, criteria: [{ attribute: "loadIndex", op: "gte", value: 121 }, next[0]!.criteria[1]!], standardCostCents: 12_500 };
@@ -83,6 +89,7 @@ describe("compareEditions", () => {
   });
 
   it("ignores the order of criteria, of their properties, and of evidence kinds", () => {
+    // Rigline rule.
     const next = copyEditionLines(first, counter("b"));
     const [c0, c1] = next[0]!.criteria;
     next[0] = {
@@ -94,6 +101,7 @@ describe("compareEditions", () => {
   });
 
   it("names simple field changes: requirement, quantity, position", () => {
+    // Rigline rule.
     const next = first.map((l) => (l.key === "k-bar" ? { ...l, id: "n2", requirement: "may_fit" as const, quantity: 2, zone: null, xMm: -650 } : l));
     const r = compareEditions(first, next.map((l) => (l.id === "a3" ? { ...l, dependsOn: ["n2"] } : l)));
     expect(r.changed.map((c) => c.key)).toEqual(["k-bar"]);
@@ -106,6 +114,7 @@ describe("compareEditions", () => {
   });
 
   it("refuses a duplicate key within one edition", () => {
+    // Rigline rule.
     const dup = [...first, line({ id: "a9", key: "k-bar" })];
     expect(() => compareEditions(dup, first)).toThrow(/a\.4\.key|appears twice/);
   });

@@ -13,12 +13,14 @@ const springs = line({ id: "l-springs", code: "SU-01", title: "Rear springs", de
 
 describe("validateDependencies", () => {
   it("gives an order with every line after the lines it depends on", () => {
+    // Rigline rule.
     // l-bar needs l-eng; l-winch needs l-bar; l-springs needs both → eng, bar, winch, springs.
     expect(validateDependencies([bar, winch, eng, springs]).order).toEqual(["l-eng", "l-bar", "l-winch", "l-springs"]);
     expect(validateDependencies([]).order).toEqual([]);
   });
 
   it("refuses a 3-line cycle and names the lines, by code and title, in cycle order", () => {
+    // Rigline rule.
     // bar → eng → winch → bar: each needs the next.
     const engInCircle = { ...eng, dependsOn: ["l-winch"] };
     const lines = [springs, bar, winch, engInCircle];
@@ -38,11 +40,13 @@ describe("validateDependencies", () => {
   });
 
   it("refuses a line that depends on itself", () => {
+    // Rigline rule.
     const selfish = line({ id: "l-self", code: "ST-09", title: "Drawer", dependsOn: ["l-self"] });
     expect(() => validateDependencies([selfish])).toThrow(/ST-09 "Drawer" → ST-09 "Drawer"/);
   });
 
   it("refuses an unknown dependency id, naming the line", () => {
+    // Rigline rule.
     const lost = line({ id: "l-lost", code: "EL-04", title: "Dual battery", dependsOn: ["no-such-line"] });
     try {
       validateDependencies([eng, lost]);
@@ -54,6 +58,7 @@ describe("validateDependencies", () => {
   });
 
   it("refuses a dependency on a line of another edition, naming both", () => {
+    // Rigline rule.
     const crossing = line({ id: "l-x", code: "EL-04", title: "Dual battery", dependsOn: ["old-7"] });
     const other = [{ id: "old-7", code: "EL-01", title: "Isolator" }];
     expect(() => validateDependencies([crossing], { otherEditionLines: other })).toThrow(
@@ -62,6 +67,7 @@ describe("validateDependencies", () => {
   });
 
   it("handles a long chain without overflowing the stack", () => {
+    // Rigline rule.
     // 20 000 lines, each depending on the one before: order is the chain itself.
     const chain = Array.from({ length: 20_000 }, (_, i) => line({ id: `c${i}`, dependsOn: i === 0 ? [] : [`c${i - 1}`] }));
     const order = validateDependencies([...chain].reverse()).order;

@@ -60,6 +60,7 @@ const preview = rolloutPreview({
 
 describe("rolloutPreview", () => {
   it("per vehicle: short lines, cost and added mass", () => {
+    // Rigline rule.
     const byId = Object.fromEntries(preview.vehicles.map((v) => [v.vehicleId, v]));
     expect(byId.V1?.shortLines.map((g) => [g.key, g.missingQuantity, g.costCents, g.addedMassKg, g.already])).toEqual([
       ["k-tracks", 2, 35_000, 15, false],
@@ -86,6 +87,7 @@ describe("rolloutPreview", () => {
   });
 
   it("totals", () => {
+    // Rigline rule.
     // Short lines 2 + 2 + 5 + 3 = 12, of which 1 (V4's kit) is short today too.
     // Cost 47 000 + 47 000 + 221 000 + 56 000 = 371 000 c ($3,710.00).
     // Mass 17.5 + 10 + 47 + 21.5 = 96 kg. Off-spec: 1 line, 120 000 c.
@@ -102,6 +104,7 @@ describe("rolloutPreview", () => {
   });
 
   it("a short may-fit line costs its standard cost but adds no mass", () => {
+    // Rigline rule.
     // A jerry can carried past its expiry: may-fit short → 15 000 c, 0 kg.
     const r = rolloutPreview({
       lines: e2.filter((l) => l.key === "k-jerry"),
@@ -112,6 +115,7 @@ describe("rolloutPreview", () => {
   });
 
   it("points a bad fitment error at the vehicle it belongs to", () => {
+    // Rigline rule.
     const bad = { ...kit, quantity: -2 };
     try {
       rolloutPreview({ lines: e2, now: NOW, vehicles: [{ vehicleId: "V1", currentLines: e1, fitments: [bad], concessions: [] }] });

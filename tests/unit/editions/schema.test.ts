@@ -34,6 +34,7 @@ function messages(input: unknown): string[] {
 
 describe("editionLineInputSchema", () => {
   it("accepts a full line and fills defaults for the optional parts", () => {
+    // Rigline rule.
     const parsed = editionLineInputSchema.parse(valid);
     expect(parsed.xMm).toBeNull();
     expect(parsed.zone).toBe("front");
@@ -54,11 +55,13 @@ describe("editionLineInputSchema", () => {
   });
 
   it("quantity is a whole number of at least 1", () => {
+    // Rigline rule.
     expect(messages({ ...valid, quantity: 0 })).toEqual(["quantity: quantity must be at least 1"]);
     expect(messages({ ...valid, quantity: 1.5 })).toEqual(["quantity: quantity must be a whole number"]);
   });
 
   it("mass is not negative and cost is whole cents, not negative", () => {
+    // Rigline rule.
     expect(messages({ ...valid, massKg: -1 })).toEqual(["massKg: massKg must not be negative"]);
     expect(messages({ ...valid, standardCostCents: 12.5 })).toEqual(["standardCostCents: standardCostCents must be whole cents"]);
     expect(messages({ ...valid, standardCostCents: -100 })).toEqual(["standardCostCents: standardCostCents must not be negative"]);
@@ -66,6 +69,7 @@ describe("editionLineInputSchema", () => {
   });
 
   it("a line with mass says where it sits: xMm, a zone, or both", () => {
+    // Rigline rule.
     expect(messages({ ...valid, zone: null })).toEqual([
       "xMm: say where the line sits: a distance behind the front axle (xMm) or a zone",
     ]);
@@ -77,6 +81,7 @@ describe("editionLineInputSchema", () => {
   });
 
   it("checks each criterion against its operator", () => {
+    // Rigline rule.
     const withCriterion = (c: object) => messages({ ...valid, criteria: [{ attribute: "x", ...c }] });
     expect(withCriterion({ op: "between", value: [450, 200] })).toEqual(["criteria.0.value: the low bound must not exceed the high bound"]);
     expect(withCriterion({ op: "between", value: [1] })).toEqual(['criteria.0.value: "between" needs two numbers: [low, high]']);
@@ -88,6 +93,7 @@ describe("editionLineInputSchema", () => {
   });
 
   it("refuses repeated evidence kinds and dependencies, and bad expiry months", () => {
+    // Rigline rule.
     expect(messages({ ...valid, evidenceNeeded: ["photo", "photo"] })).toEqual(["evidenceNeeded: list each evidence kind once"]);
     expect(messages({ ...valid, dependsOn: ["a", "a"] })).toEqual(["dependsOn: list each dependency once"]);
     expect(messages({ ...valid, expiryMonths: 0 })).toEqual(["expiryMonths: expiryMonths must be at least 1"]);
@@ -97,6 +103,7 @@ describe("editionLineInputSchema", () => {
 
 describe("editionLinesInputSchema", () => {
   it("refuses two lines with one key", () => {
+    // Rigline rule.
     const r = editionLinesInputSchema.safeParse([valid, { ...valid, code: "TY-02" }]);
     expect(r.success).toBe(false);
     expect(r.error?.issues[0]?.path).toEqual([1, "key"]);

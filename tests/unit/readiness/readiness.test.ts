@@ -78,6 +78,7 @@ describe("tripReadiness: ready", () => {
 
 describe("tripReadiness: not_ready, each reason", () => {
   it("grounded", () => {
+    // Rigline rule.
     const r = tripReadiness({ ...base, vehicleState: "grounded" });
     expect(r.state).toBe("not_ready");
     expect(r.reasons).toHaveLength(1);
@@ -86,6 +87,7 @@ describe("tripReadiness: not_ready, each reason", () => {
   });
 
   it("retired", () => {
+    // Rigline rule.
     const r = tripReadiness({ ...base, vehicleState: "retired" });
     expect(r.state).toBe("not_ready");
     expect(r.reasons.map((x) => x.code)).toEqual(["vehicle_retired"]);
@@ -93,6 +95,7 @@ describe("tripReadiness: not_ready, each reason", () => {
   });
 
   it("a stop defect, named", () => {
+    // Rigline rule.
     const r = tripReadiness({ ...base, openDefects: [{ id: "d9", severity: "stop", title: "Brake line leaking" }] });
     expect(r.state).toBe("not_ready");
     expect(r.reasons).toEqual([
@@ -101,6 +104,7 @@ describe("tripReadiness: not_ready, each reason", () => {
   });
 
   it("a short safety line, naming code, title and how many are missing", () => {
+    // Rigline rule.
     const r = tripReadiness({ ...base, variance: varianceOf(without("s1")) });
     expect(r.state).toBe("not_ready");
     expect(r.reasons).toEqual([
@@ -109,6 +113,7 @@ describe("tripReadiness: not_ready, each reason", () => {
   });
 
   it("a short recovery line (1 of 2 fitted)", () => {
+    // Rigline rule.
     const fitments = [...without("r1"), fitment({ id: "fr1", lineId: "r1", quantity: 1 })];
     const r = tripReadiness({ ...base, variance: varianceOf(fitments) });
     expect(r.state).toBe("not_ready");
@@ -116,6 +121,7 @@ describe("tripReadiness: not_ready, each reason", () => {
   });
 
   it("a safety line short because its item expired says so", () => {
+    // Rigline rule.
     const fitments = [...without("s1"), fitment({ id: "fs1", lineId: "s1", expiresAt: daysFromNow(-1) })];
     const r = tripReadiness({ ...base, variance: varianceOf(fitments) });
     expect(r.state).toBe("not_ready");
@@ -123,6 +129,7 @@ describe("tripReadiness: not_ready, each reason", () => {
   });
 
   it("an off-spec communications line, naming the criterion and the value found", () => {
+    // Rigline rule.
     const fitments = [...without("c1"), { ...good[2]!, attributes: { powerW: 1 } }];
     const r = tripReadiness({ ...base, variance: varianceOf(fitments) });
     expect(r.state).toBe("not_ready");
@@ -137,12 +144,14 @@ describe("tripReadiness: not_ready, each reason", () => {
   });
 
   it("an off-spec line with the attribute missing says 'not recorded'", () => {
+    // Rigline rule.
     const fitments = [...without("c1"), { ...good[2]!, attributes: {} }];
     const r = tripReadiness({ ...base, variance: varianceOf(fitments) });
     expect(r.reasons[0]?.message).toBe('Communications line CM-01 "UHF radio" is off-spec: Transmit power is not recorded, needs at least 5 W.');
   });
 
   it("an expired item (expiry on or before now)", () => {
+    // Rigline rule.
     const r = tripReadiness({ ...base, expiringItems: [{ label: "First-aid kit", expiresAt: NOW }] });
     expect(r.state).toBe("not_ready");
     expect(r.reasons).toEqual([
@@ -153,6 +162,7 @@ describe("tripReadiness: not_ready, each reason", () => {
 
 describe("tripReadiness: limited, each reason says town and graded roads only", () => {
   it("in fit-out", () => {
+    // Rigline rule.
     const r = tripReadiness({ ...base, vehicleState: "in_fitout" });
     expect(r.state).toBe("limited");
     expect(r.reasons.map((x) => x.code)).toEqual(["vehicle_in_fitout"]);
@@ -161,6 +171,7 @@ describe("tripReadiness: limited, each reason says town and graded roads only", 
   });
 
   it("a before-next-trip defect, named", () => {
+    // Rigline rule.
     const r = tripReadiness({ ...base, openDefects: [{ id: "d2", severity: "before_next_trip", title: "Rear door seal letting dust in" }] });
     expect(r.state).toBe("limited");
     expect(r.reasons).toEqual([
@@ -174,6 +185,7 @@ describe("tripReadiness: limited, each reason says town and graded roads only", 
   });
 
   it("a short line outside the critical categories", () => {
+    // Rigline rule.
     const r = tripReadiness({ ...base, variance: varianceOf(without("t1")) });
     expect(r.state).toBe("limited");
     expect(r.reasons).toEqual([
@@ -187,6 +199,7 @@ describe("tripReadiness: limited, each reason says town and graded roads only", 
   });
 
   it("an off-spec line outside the critical categories", () => {
+    // Rigline rule.
     const drawers: EditionLine[] = lines.map((l) =>
       l.id === "t1" ? { ...l, criteria: [{ attribute: "loadKg", label: "Rated load", unit: "kg", op: "gte", value: 100 }] } : l,
     );
@@ -216,6 +229,7 @@ describe("tripReadiness: limited, each reason says town and graded roads only", 
   });
 
   it("a must-not-fit item that is fitted", () => {
+    // Rigline rule.
     const r = tripReadiness({ ...base, variance: varianceOf([...good, fitment({ id: "fn1", lineId: "n1" })]) });
     expect(r.state).toBe("limited");
     expect(r.reasons[0]).toMatchObject({ code: "prohibited_item_fitted", ref: "n1" });
@@ -250,6 +264,7 @@ describe("tripReadiness: limited, each reason says town and graded roads only", 
 
 describe("tripReadiness: several reasons", () => {
   it("not_ready wins, and reasons are listed not_ready, then limited, then notes", () => {
+    // Rigline rule.
     const r = tripReadiness({
       ...base,
       vehicleState: "in_fitout",
@@ -274,6 +289,7 @@ describe("tripReadiness: several reasons", () => {
 
 describe("tripReadiness: bad input", () => {
   it("throws InputError naming the field", () => {
+    // Rigline rule.
     const fieldOf = (f: () => unknown) => {
       try {
         f();

@@ -81,4 +81,22 @@ describe("criterion evaluation", () => {
     const c = { attribute: "toString", op: "eq" as const, value: "x" };
     expect(evaluateCriterion(c, {})).toEqual({ pass: false, actual: NOT_RECORDED });
   });
+
+  it("property: eq and one_of agree with valuesEqual, gte with a plain numeric comparison", () => {
+    // Rigline rule: one equality for every operator that matches values.
+    const scalar = fc.oneof(
+      fc.integer({ min: -500, max: 500 }),
+      fc.integer({ min: -500, max: 500 }).map((n) => ` ${n} `),
+      fc.constantFrom("265/70R17", "265/70 r17", "LT265/70R17", "Q", "q", "17", "R17", "x"),
+    );
+    fc.assert(
+      fc.property(scalar, scalar, fc.integer({ min: -500, max: 500 }), (actual, expected, limit) => {
+        const eq = evaluateCriterion({ attribute: "a", op: "eq", value: expected }, { a: actual }).pass;
+        const oneOf = evaluateCriterion({ attribute: "a", op: "one_of", value: ["zzz", expected] }, { a: actual }).pass;
+        const n = asNumber(actual);
+        const gte = evaluateCriterion({ attribute: "a", op: "gte", value: limit }, { a: actual }).pass;
+        return eq === valuesEqual(actual, expected) && oneOf === eq && gte === (n !== null && n >= limit);
+      }),
+    );
+  });
 });

@@ -321,6 +321,7 @@ describe("lineVariance: removed, expired and future fitments", () => {
 
 describe("lineVariance: bad input", () => {
   it("throws InputError naming the field", () => {
+    // Rigline rule.
     const bad = line({ id: "l-bad", massKg: Number.NaN });
     expect(() => lineVariance(bad, [], [], NOW)).toThrow(InputError);
     try {
@@ -331,6 +332,7 @@ describe("lineVariance: bad input", () => {
   });
 
   it("refuses a malformed criterion, an invalid date and a negative quantity", () => {
+    // Rigline rule.
     const between = line({ id: "l-b", criteria: [{ attribute: "x", op: "between", value: [5, 1] }] });
     expect(() => lineVariance(between, [], [], NOW)).toThrow(/low bound/);
     const gteText = line({ id: "l-g", criteria: [{ attribute: "x", op: "gte", value: "high" }] });
@@ -340,7 +342,17 @@ describe("lineVariance: bad input", () => {
     expect(() => lineVariance(tyres, [neg], [], NOW)).toThrow(/fitments\.0\.quantity/);
   });
 
+  it("checks a reused lines array again when a line in it is replaced", () => {
+    // Rigline rule: an edition's lines are checked once per array, but a swapped line is seen.
+    const edition = [line({ id: "l-a" }), line({ id: "l-b" })];
+    const input = { lines: edition, fitments: [], concessions: [], now: NOW };
+    expect(vehicleVariance(input).summary.short).toBe(2);
+    edition[1] = line({ id: "l-b", quantity: 0 });
+    expect(() => vehicleVariance(input)).toThrow(/lines\.1\.quantity/);
+  });
+
   it("refuses duplicate line ids in a vehicle variance", () => {
+    // Rigline rule.
     const a = line({ id: "l-dup" });
     expect(() => vehicleVariance({ lines: [a, a], fitments: [], concessions: [], now: NOW })).toThrow(
       /appears twice/,

@@ -68,6 +68,7 @@ describe("vehicleVariance", () => {
   });
 
   it("names the field of a bad fitment by its index", () => {
+    // Rigline rule.
     const bad = [...fitments, { ...fitments[0]!, fittedAt: new Date(Number.NaN) }];
     try {
       vehicleVariance({ lines, fitments: bad, concessions, now: NOW });
@@ -174,6 +175,7 @@ describe("fleetVariance", () => {
   });
 
   it("refuses a vehicle listed twice", () => {
+    // Rigline rule.
     const v = { vehicleId: "V1", depotId: "D", platformId: "P", variance: null };
     expect(() => fleetVariance([v, v])).toThrow(InputError);
   });
