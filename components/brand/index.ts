@@ -1,0 +1,1 @@
+export { Logo, LogoMark, type LogoProps, type LogoMarkProps } from "./logo";
