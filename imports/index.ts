@@ -45,3 +45,17 @@ export {
   type ValidateOptions,
 } from "./vehicle-row";
 export { checkVinShape, VIN_LENGTH, type VinShape } from "./vin-shape";
+export {
+  planUpsert,
+  UPSERT_FIELDS,
+  type UpsertField,
+  type ExistingVehicle,
+  type KnownPlatform,
+  type PlanOptions,
+  type FieldChange,
+  type FieldValue,
+  type MatchedBy,
+  type PlannedRow,
+  type NewPlatform,
+  type UpsertPlan,
+} from "./plan";
