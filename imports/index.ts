@@ -44,7 +44,6 @@ export {
   type RowValidation,
   type ValidateOptions,
 } from "./vehicle-row";
-export { checkVinShape, VIN_LENGTH, type VinShape } from "./vin-shape";
 export {
   planUpsert,
   UPSERT_FIELDS,

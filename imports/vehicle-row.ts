@@ -1,5 +1,6 @@
 import { z } from "zod";
 import { InputError } from "@/lib/errors";
+import { checkVin } from "@/lib/vin";
 import { coerceBuildYear, coerceDate, coerceQuantity, coerceState, coerceText, type Coerced } from "./coerce";
 import {
   PLATFORM_RATING_FIELDS,
@@ -14,7 +15,6 @@ import {
 } from "./fields";
 import { getOwn } from "./own";
 import type { CellValue, ParsedSpreadsheet } from "./parse";
-import { checkVinShape } from "./vin-shape";
 
 /** One clean row. Fields the file does not give are null ("not given", not "clear it"). */
 export interface VehicleRowValues {
@@ -101,8 +101,10 @@ export function makeVehicleRowSchema(context: RowContext = {}) {
       vin: cellField((value): Coerced<string> => {
         const text = coerceText(value, "VIN", { maxLength: 64 });
         if (!text.ok || text.value === null) return text;
-        const shape = checkVinShape(text.value);
-        return shape.ok ? { ok: true, value: shape.vin } : { ok: false, message: shape.message };
+        // Structure per ISO 3779 from the shared VIN module; its check-digit report is information only.
+        const check = checkVin(text.value);
+        if (check.structureOk) return { ok: true, value: check.normalised };
+        return { ok: false, message: check.problems.map((problem) => problem.message).join(" ") };
       }),
       registration: textField("registration", 16),
       registrationExpiry: cellField((value) => coerceDate(value, "Registration expiry", date1904)),

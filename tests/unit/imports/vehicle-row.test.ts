@@ -1,7 +1,6 @@
 import { describe, expect, it } from "vitest";
 import ExcelJS from "exceljs";
 import {
-  checkVinShape,
   makeVehicleRowSchema,
   parseSpreadsheet,
   validateRows,
@@ -42,38 +41,45 @@ function valueOf(field: string, value: CellValue): unknown {
   return (result.data as Record<string, unknown>)[field];
 }
 
-describe("VIN structure", () => {
+describe("VIN in an import row", () => {
   it("accepts 17 letters and digits without I, O or Q, upper-cased", () => {
     // 17 characters, I, O and Q never used: ISO 3779 (S); sample VINs from 49 CFR 565 and the
     // NHTSA new-manufacturer guide (S)
     for (const vin of ["1G4AH59H45G118341", "1J9RP1A36A1644345", "1M8GDM9AXKP042788", "LJCPCBLCX11000237"]) {
-      expect(checkVinShape(vin)).toEqual({ ok: true, vin });
+      expect(valueOf("vin", vin)).toBe(vin);
     }
-    // Upper-cased and spaces dropped: ISO 3779 (S) characters are capital letters and digits
-    expect(checkVinShape(" 1g4ah59h45 g118341 ")).toEqual({ ok: true, vin: "1G4AH59H45G118341" });
+    // Capital letters and digits only, so case and spaces are set aside: ISO 3779 (S)
+    expect(valueOf("vin", " 1g4ah59h45 g118341 ")).toBe("1G4AH59H45G118341");
   });
 
   it("says how many characters a wrong-length VIN has", () => {
     // Length 17: ISO 3779 (S)
-    expect(checkVinShape("1G4AH59H45G11834")).toEqual({ ok: false, message: "VIN has 16 characters; it needs 17" });
-    expect(checkVinShape("1G4AH59H45G1183410")).toEqual({ ok: false, message: "VIN has 18 characters; it needs 17" });
+    expect(messageFor("vin", "1G4AH59H45G11834")).toBe("A VIN has 17 characters; this one has 16.");
+    expect(messageFor("vin", "1G4AH59H45G1183410")).toBe("A VIN has 17 characters; this one has 18.");
   });
 
-  it("names the forbidden letter and its position", () => {
+  it("names the forbidden letter or character and its position", () => {
     // Letters I, O and Q never used: ISO 3779 (S)
-    expect(checkVinShape("1G4AH59HO5G118341")).toEqual({
-      ok: false,
-      message: "VIN has the letter O at position 9 (perhaps the digit 0); a VIN never uses I, O or Q",
-    });
-    expect(checkVinShape("IG4AH59H45G118341").ok).toBe(false);
-    expect(checkVinShape("1G4AH59H45G11834Q").ok).toBe(false);
-    expect(checkVinShape("1G4AH-9H45G118341")).toEqual({ ok: false, message: 'VIN has "-" at position 6; a VIN holds only letters and digits' });
+    expect(messageFor("vin", "1G4AH59HO5G118341")).toBe(
+      "Position 9 is the letter O, which a VIN never uses; it is probably the digit 0.",
+    );
+    expect(messageFor("vin", "IG4AH59H45G118341")).toMatch(/^Position 1 is the letter I/);
+    expect(messageFor("vin", "1G4AH59H45G11834Q")).toMatch(/^Position 17 is the letter Q/);
+    expect(messageFor("vin", "1G4AH-9H45G118341")).toBe('Position 6 is "-"; a VIN has only letters and digits.');
+    // Every problem is told at once.
+    expect(messageFor("vin", "1G4AH59HO5G11834")).toBe(
+      "A VIN has 17 characters; this one has 16. Position 9 is the letter O, which a VIN never uses; it is probably the digit 0.",
+    );
   });
 
-  it("does not reject a VIN on its check digit outside North America", () => {
-    // Position 9 check digit is required only for North American vehicles: 49 CFR 565 (P), ISO 3779 (S)
-    // 1G4AH59H45G118341 has check digit 4; with 9 instead it is structurally still a VIN.
-    expect(checkVinShape("1G4AH59H95G118341").ok).toBe(true);
+  it("does not reject a VIN on its check digit", () => {
+    // Position-9 check digit required only for North American vehicles: 49 CFR 565 (P), ISO 3779 (S).
+    // 1G4AH59H45G118341 has check digit 4; with 9 in its place the structure is still sound.
+    expect(valueOf("vin", "1G4AH59H95G118341")).toBe("1G4AH59H95G118341");
+  });
+
+  it("leaves an empty VIN empty", () => {
+    expect(valueOf("vin", "   ")).toBeNull();
   });
 });
 
@@ -256,7 +262,7 @@ describe("validateRows", () => {
       { now: NOW },
     );
     expect(result.errors).toEqual([
-      { row: 3, column: "Chassis No.", field: "vin", message: "VIN has 16 characters; it needs 17" },
+      { row: 3, column: "Chassis No.", field: "vin", message: "A VIN has 17 characters; this one has 16." },
       { row: 3, column: "Odo (km)", field: "odometerKm", message: "Odometer is -1,250 km; it cannot be negative" },
       { row: 4, column: "Unit", field: "fleetNumber", message: "Fleet number is empty; every row needs one" },
     ]);
