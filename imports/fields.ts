@@ -81,14 +81,14 @@ export const VEHICLE_FIELD_INFO: Readonly<Record<VehicleField, VehicleFieldInfo>
     header: "Make",
     required: false,
     description: "Vehicle maker. Make, model and variant together name the platform.",
-    example: "Tandara",
+    example: "Korrawa",
   },
   model: {
     label: "Model",
     header: "Model",
     required: false,
     description: "Model name as the maker gives it.",
-    example: "Ridgeback 70",
+    example: "Dunecrest 70",
   },
   variant: {
     label: "Variant",

@@ -58,3 +58,4 @@ export {
   type NewPlatform,
   type UpsertPlan,
 } from "./plan";
+export { vehicleImportTemplate, TEMPLATE_SHEET, TEMPLATE_NOTES_SHEET } from "./template";

@@ -80,6 +80,14 @@ describe("parseSpreadsheet: XLSX", () => {
     expect(parsed.rows).toEqual([{ rowNumber: 2, cells: { "Fleet number": "RH-014", Depot: "Red Gully" } }]);
   });
 
+  it("gives every cell of a merged range the top-left value", async () => {
+    const buffer = await workbookOf([["Fleet number", "Depot"], ["RH-014", "Mulga Creek"], ["RH-015", null]], (_workbook, sheet) => {
+      sheet.mergeCells("B2:B3");
+    });
+    const parsed = await parseSpreadsheet(buffer);
+    expect(parsed.rows.map((row) => row.cells["Depot"])).toEqual(["Mulga Creek", "Mulga Creek"]);
+  });
+
   it("reports the 1904 date system so raw serials can be read right", async () => {
     const buffer = await workbookOf([["Fleet number"], ["RH-014"]], (workbook) => {
       workbook.properties.date1904 = true;
