@@ -12,7 +12,7 @@ type Option = { id: string; name: string };
 export function InviteForm({ firms, depots }: { firms: Option[]; depots: Option[] }) {
   const { state, formAction, errorOf, valueOf } = useFormAction(inviteUserAction);
   return (
-    <form action={formAction} className="grid grid-cols-1 gap-4 md:grid-cols-2" noValidate key={state.data?.membershipId ?? "invite"}>
+    <form aria-label="Invite someone" action={formAction} className="grid grid-cols-1 gap-4 md:grid-cols-2" noValidate key={state.data?.membershipId ?? "invite"}>
       <div className="md:col-span-2">
         <FormStatus state={state} testId="invite-status" />
       </div>

@@ -30,7 +30,8 @@ export type SessionClaims = {
   sv: number;
 };
 
-export const { handlers, auth, signIn, signOut } = NextAuth({
+// Lazy config: the environment is read when the first request arrives, not at build time.
+export const { handlers, auth, signIn, signOut } = NextAuth(() => ({
   secret: env().AUTH_SECRET,
   trustHost: true,
   session: { strategy: "jwt", maxAge: 12 * 60 * 60 },
@@ -94,4 +95,4 @@ export const { handlers, auth, signIn, signOut } = NextAuth({
       return session;
     },
   },
-});
+}));

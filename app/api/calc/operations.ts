@@ -1,6 +1,7 @@
 import "server-only";
 import { z } from "zod";
 import { ELECTRICAL_CAUTION, MASS_CAUTION, tyreCaution } from "@/components/calculators/cautions";
+import type { AxleLoadsResponse, BatteryResponse, CableRunResponse, TyreChangeResponse } from "@/components/calculators/types";
 import { batteryCalc, batteryCalcInputSchema, cableRun, cableRunInputSchema } from "@/lib/electrical";
 import { axleLoads, axleLoadsInputSchema } from "@/lib/mass";
 import { EXAMPLE_RULE_SETS, exampleRuleSet } from "@/lib/rules";
@@ -20,7 +21,7 @@ export const axleLoadsCalc = query({
   name: "calc.axleLoads",
   input: axleLoadsInputSchema,
   permission: USE_CALCULATOR,
-  run: async ({ input }) => ({ ...axleLoads(input), caution: MASS_CAUTION }),
+  run: async ({ input }): Promise<AxleLoadsResponse> => ({ ...axleLoads(input), caution: MASS_CAUTION }),
 });
 
 const RULE_SET_IDS = EXAMPLE_RULE_SETS.map((r) => r.id) as [string, ...string[]];
@@ -46,7 +47,7 @@ export const tyreChangeCalc = query({
   name: "calc.tyreChange",
   input: tyreChangeCalcInputSchema,
   permission: USE_CALCULATOR,
-  run: async ({ input }) => {
+  run: async ({ input }): Promise<TyreChangeResponse> => {
     const rules = exampleRuleSet(input.ruleSetId ?? DEFAULT_RULE_SET_ID);
     const result = tyreChange({
       from: input.from,
@@ -68,7 +69,7 @@ export const cableRunCalc = query({
   name: "calc.cableRun",
   input: cableRunInputSchema,
   permission: USE_CALCULATOR,
-  run: async ({ input }) => ({ ...cableRun(input), caution: ELECTRICAL_CAUTION }),
+  run: async ({ input }): Promise<CableRunResponse> => ({ ...cableRun(input), caution: ELECTRICAL_CAUTION }),
 });
 
 /** POST /api/calc/battery */
@@ -76,10 +77,5 @@ export const batteryCalcOp = query({
   name: "calc.battery",
   input: batteryCalcInputSchema,
   permission: USE_CALCULATOR,
-  run: async ({ input }) => ({ ...batteryCalc(input), caution: ELECTRICAL_CAUTION }),
+  run: async ({ input }): Promise<BatteryResponse> => ({ ...batteryCalc(input), caution: ELECTRICAL_CAUTION }),
 });
-
-export type AxleLoadsCalcResult = Awaited<ReturnType<typeof axleLoadsCalc.run>>;
-export type TyreChangeCalcResult = Awaited<ReturnType<typeof tyreChangeCalc.run>>;
-export type CableRunCalcResult = Awaited<ReturnType<typeof cableRunCalc.run>>;
-export type BatteryCalcOpResult = Awaited<ReturnType<typeof batteryCalcOp.run>>;
