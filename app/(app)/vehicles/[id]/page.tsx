@@ -1,21 +1,15 @@
 import type { Metadata } from "next";
-import { notFound } from "next/navigation";
-import { Card, CardBody, CardHeader, PageHeader } from "@/components/ui";
-import { VehicleStatePill } from "@/components/vehicles/vehicle-state";
+import { Card, CardBody, CardHeader } from "@/components/ui";
 import { getVehicle } from "@/lib/commands/vehicles";
-import { AppError } from "@/lib/server/errors";
 import { requirePermission } from "@/lib/server/guard";
 import { execute } from "@/lib/server/operation";
 
 export const metadata: Metadata = { title: "Vehicle" };
 
-export default async function VehiclePage({ params }: { params: Promise<{ id: string }> }) {
+export default async function VehicleDetailsPage({ params }: { params: Promise<{ id: string }> }) {
   const { id } = await params;
   const user = await requirePermission("read", "Vehicle");
-  const vehicle = await execute(getVehicle, user, { id }).catch((error: unknown) => {
-    if (error instanceof AppError && error.code === "not_found") notFound();
-    throw error;
-  });
+  const vehicle = await execute(getVehicle, user, { id });
   const facts: [string, string | number | null | undefined][] = [
     ["Registration", vehicle.registration],
     ["VIN", vehicle.vin],
@@ -27,13 +21,7 @@ export default async function VehiclePage({ params }: { params: Promise<{ id: st
     ["Drivers", vehicle.drivers.map((d) => d.name).join(", ") || "None assigned"],
   ];
   return (
-    <div className="flex flex-col gap-6">
-      <PageHeader
-        eyebrow="Vehicle"
-        title={vehicle.fleetNumber}
-        question="Is this vehicle fitted to its standard and fit for the track?"
-        actions={<VehicleStatePill state={vehicle.state} />}
-      />
+    <>
       {vehicle.groundedReason && vehicle.state === "grounded" && (
         <p className="rounded-md border-l-4 border-danger bg-danger-soft px-3 py-2 font-medium text-danger-ink">
           Grounded: {vehicle.groundedReason}
@@ -52,6 +40,6 @@ export default async function VehiclePage({ params }: { params: Promise<{ id: st
           </dl>
         </CardBody>
       </Card>
-    </div>
+    </>
   );
 }
