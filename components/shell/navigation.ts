@@ -5,6 +5,7 @@ export type NavItem = { href: string; label: string; need: readonly [Action, Sub
 /** The app's navigation; each role sees the items its permissions allow. */
 export const NAV_ITEMS: NavItem[] = [
   { href: "/vehicles", label: "Vehicles", need: ["read", "Vehicle"] },
+  { href: "/platforms", label: "Platforms", need: ["read", "Platform"], roles: ["admin", "manager", "finance"] },
   { href: "/calculators", label: "Calculators", need: ["use", "Calculator"], roles: ["admin", "manager", "finance", "contractor"] },
   { href: "/admin/users", label: "People", need: ["read", "User"] },
   { href: "/admin/depots", label: "Depots", need: ["read", "Depot"], roles: ["admin", "manager", "finance"] },
