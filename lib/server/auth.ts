@@ -36,6 +36,13 @@ export const { handlers, auth, signIn, signOut } = NextAuth(() => ({
   trustHost: true,
   session: { strategy: "jwt", maxAge: 12 * 60 * 60 },
   pages: { signIn: "/sign-in" },
+  logger: {
+    // A wrong password is an expected outcome, not a server error worth a stack trace.
+    error(error: Error) {
+      if (error.name === "CredentialsSignin" || error.name === "SignInRateLimited") return;
+      console.error("[auth]", error);
+    },
+  },
   providers: [
     Credentials({
       credentials: { email: {}, password: {} },
