@@ -67,7 +67,7 @@ export function MemberActiveForm({ membershipId, active, label }: { membershipId
     <form action={formAction} className="flex items-center gap-2">
       <input type="hidden" name="membershipId" value={membershipId} />
       <input type="hidden" name="active" value={active ? "false" : "true"} />
-      <SubmitButton size="sm" variant={active ? "danger" : "secondary"} aria-label={`${active ? "Deactivate" : "Reactivate"} ${label}`}>
+      <SubmitButton size="sm" variant="secondary" aria-label={`${active ? "Deactivate" : "Reactivate"} ${label}`}>
         {active ? "Deactivate" : "Reactivate"}
       </SubmitButton>
       {state.status === "error" && <FormStatus state={state} testId={`active-status-${membershipId}`} />}
