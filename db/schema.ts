@@ -725,9 +725,22 @@ export const preTripChecks = sqliteTable(
       .notNull()
       .references(() => users.id),
     clientId: text("client_id").notNull(),
-    items: json<{ label: string; lineKey?: string; result: "pass" | "fail" | "na"; note?: string }[]>(
-      "items",
-    ).notNull(),
+    /**
+     * The answers in checklist order. `key` names the checklist item ("general.tyres",
+     * "line.<line key>"); photos of an item are evidence rows with this check's id, listed in
+     * `photoIds`; `defectClientId` is the device id of a defect raised from the item.
+     */
+    items: json<
+      {
+        key?: string;
+        label: string;
+        lineKey?: string;
+        result: "pass" | "fail" | "na";
+        note?: string;
+        photoIds?: string[];
+        defectClientId?: string;
+      }[]
+    >("items").notNull(),
     completedAt: integer("completed_at", { mode: "timestamp_ms" }).notNull(),
     createdAt: createdAt(),
   },
