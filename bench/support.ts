@@ -1,0 +1,50 @@
+/** Shared pieces of the benchmarks: a temporary database, timing, and one way to print results. */
+import { mkdtempSync, rmSync } from "node:fs";
+import { tmpdir } from "node:os";
+import { join } from "node:path";
+import { makeDb, openClient, prepareLocal, type Database } from "@/db/client";
+import { migrateDatabase } from "@/db/migrate";
+
+export async function benchDatabase(): Promise<{ database: Database; dir: string; url: string; close: () => void }> {
+  const dir = mkdtempSync(join(tmpdir(), "rigline-bench-"));
+  const url = `file:${join(dir, "bench.db")}`;
+  const client = openClient(url);
+  await prepareLocal(client, url);
+  const database = makeDb(client);
+  await migrateDatabase(database);
+  return { database, dir, url, close: () => { client.close(); rmSync(dir, { recursive: true, force: true }); } };
+}
+
+/** Median wall time of `runs` calls after `warmup` untimed ones. */
+export async function medianMs(fn: () => Promise<unknown> | unknown, runs = 5, warmup = 1): Promise<number> {
+  for (let i = 0; i < warmup; i++) await fn();
+  const times: number[] = [];
+  for (let i = 0; i < runs; i++) {
+    const t0 = performance.now();
+    await fn();
+    times.push(performance.now() - t0);
+  }
+  times.sort((a, b) => a - b);
+  return times[Math.floor(times.length / 2)]!;
+}
+
+export type BenchResult = {
+  name: string;
+  figure: string;
+  baseline: string;
+  /** How the measured figure compares with the baseline, in words and number. */
+  ratio: number;
+  ratioLabel: string;
+  target: string;
+  met: boolean;
+};
+
+export function report(results: BenchResult[]): void {
+  for (const r of results) {
+    console.log(`\n${r.name}`);
+    console.log(`  measured : ${r.figure}`);
+    console.log(`  baseline : ${r.baseline}`);
+    console.log(`  ratio    : ${r.ratio.toFixed(2)} ${r.ratioLabel}`);
+    console.log(`  target   : ${r.target} → ${r.met ? "met" : "NOT met"}`);
+  }
+}
