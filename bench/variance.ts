@@ -49,7 +49,7 @@ export async function run(): Promise<BenchResult[]> {
         const rows = inserted.flatMap((v, j) =>
           lines
             .filter((_, li) => (start + j + li) % 9 !== 0) // about one line in nine left short
-            .map((l, li) => ({ orgId, vehicleId: v.id, lineKey: l.key, label: l.title, fittedAt: fitted, attributes: li % 5 === 0 ? { ratingKg: 420 } : {} })),
+            .map((l, li) => ({ orgId, vehicleId: v.id, lineKey: l.key, label: l.title, fittedAt: fitted, attributes: (li % 5 === 0 ? { ratingKg: 420 } : {}) as Record<string, number> })),
         );
         for (let k = 0; k < rows.length; k += 2000) await tx.insert(fitments).values(rows.slice(k, k + 2000));
       });
