@@ -6,7 +6,7 @@ export type NavItem = { href: string; label: string; need: readonly [Action, Sub
 export const NAV_ITEMS: NavItem[] = [
   { href: "/vehicles", label: "Vehicles", need: ["read", "Vehicle"] },
   { href: "/platforms", label: "Platforms", need: ["read", "Platform"], roles: ["admin", "manager", "finance"] },
-  { href: "/calculators", label: "Calculators", need: ["use", "Calculator"], roles: ["admin", "manager", "finance", "contractor"] },
+  { href: "/calculators", label: "Calculators", need: ["use", "Calculator"] },
   { href: "/admin/users", label: "People", need: ["read", "User"] },
   { href: "/admin/depots", label: "Depots", need: ["read", "Depot"], roles: ["admin", "manager", "finance"] },
   { href: "/admin/firms", label: "Workshops", need: ["read", "Firm"] },
