@@ -13,6 +13,7 @@ import {
 } from "../schema";
 import { DEMO_PASSWORD, ORGANISATIONS, type DemoOrganisation } from "./scenario";
 import { demoVin, demoRegistration } from "./identifiers";
+import { seedCosts } from "./costs";
 
 export type SeedReport = { organisations: { name: string; created: boolean }[] };
 
@@ -109,4 +110,5 @@ async function seedOrganisation(tx: Database, scenario: DemoOrganisation, passwo
       await tx.insert(vehicleDrivers).values({ vehicleId: vehicle.id, userId: driverId });
     }
   }
+  await seedCosts(tx, org.id);
 }
