@@ -21,7 +21,9 @@ let vehicle: typeof vehicles.$inferSelect;
 
 beforeAll(async () => {
   finance = await signedInAs(database, "finance@mirrabel-health.example");
-  [vehicle] = await database.select().from(vehicles).where(and(eq(vehicles.orgId, finance.orgId), eq(vehicles.fleetNumber, "MH-005")));
+  const [found] = await database.select().from(vehicles).where(and(eq(vehicles.orgId, finance.orgId), eq(vehicles.fleetNumber, "MH-005")));
+  if (!found) throw new Error("demo vehicle MH-005 is missing");
+  vehicle = found;
 });
 
 async function failure(promise: Promise<unknown>): Promise<AppError> {
