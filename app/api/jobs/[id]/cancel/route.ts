@@ -1,6 +1,7 @@
+import { queuedHandler } from "@/lib/commands/jobs";
 import { cancelJob } from "@/lib/commands/jobs";
 import { routeHandler } from "@/lib/server/route";
 import { bodyWithId } from "../../body";
 
 /** Body: `{ reason }`. */
-export const POST = routeHandler(cancelJob, bodyWithId);
+export const POST = queuedHandler("job", routeHandler(cancelJob, bodyWithId));

@@ -1,6 +1,7 @@
+import { queuedHandler } from "@/lib/commands/jobs";
 import { signOffJob } from "@/lib/commands/jobs";
 import { routeHandler } from "@/lib/server/route";
 import { bodyWithId } from "../../body";
 
 /** Body: `{ version? } — books the cost`. */
-export const POST = routeHandler(signOffJob, bodyWithId);
+export const POST = queuedHandler("job", routeHandler(signOffJob, bodyWithId));
