@@ -1,0 +1,2 @@
+export { renderStatementPdf, StatementDocument, kg as statementKg } from "./render";
+export type { StatementData, StatementRow } from "./types";

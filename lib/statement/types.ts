@@ -1,0 +1,39 @@
+/** What the printable mass statement of one vehicle shows. Plain data: the renderer only lays it out. */
+export type StatementRow = { label: string; loadKg: number; capacityKg: number; headroomKg: number; ok: boolean };
+
+export type StatementData = {
+  orgName: string;
+  generatedAt: Date;
+  generatedBy: string;
+  vehicle: {
+    fleetNumber: string;
+    registration: string | null;
+    vin: string | null;
+    platform: string;
+    depot: string | null;
+  };
+  /** The loading the figures are for, in words ("2 occupants, 40 L water, …"). */
+  loadingText: string;
+  includePlanned: boolean;
+  baseText: string;
+  axles: { frontKg: number | null; rearKg: number | null; grossKg: number | null; combinationKg: number | null };
+  checks: StatementRow[];
+  binding: { label: string; marginKg: number } | null;
+  payload: { capacityKg: number; usedKg: number; leftKg: number } | null;
+  aboveStandardKg: number | null;
+  warnings: string[];
+  missing: string[];
+  tyres: { size: string | null; source: string; loadIndex: number | null; capacityText: string[] };
+  suspension: Array<{
+    axle: "Front" | "Rear";
+    constantKg: number;
+    variableKg: number;
+    suggestedMinKg: number;
+    suggestedMaxKg: number;
+  }>;
+  fitted: Array<{ code: string; label: string; quantity: number; massKg: number | null; position: string; evidence: string }>;
+  planned: Array<{ label: string; massKg: number; position: string; kind: string }>;
+  measured: { frontKg: number; rearKg: number; grossKg: number | null; measuredAt: Date | null } | null;
+  ruleSet: { name: string; note: string; label: string };
+  cautions: string[];
+};
