@@ -13,6 +13,7 @@ import {
 } from "../schema";
 import { DEMO_PASSWORD, ORGANISATIONS, type DemoOrganisation } from "./scenario";
 import { demoVin, demoRegistration } from "./identifiers";
+import { seedRuleSets } from "../rule-sets";
 import { seedCosts } from "./costs";
 
 export type SeedReport = { organisations: { name: string; created: boolean }[] };
@@ -24,6 +25,7 @@ export type SeedReport = { organisations: { name: string; created: boolean }[] }
 export async function seedDemo(database: Database): Promise<SeedReport> {
   const passwordHash = await bcrypt.hash(DEMO_PASSWORD, 10);
   const report: SeedReport = { organisations: [] };
+  await seedRuleSets(database);
   for (const scenario of ORGANISATIONS) {
     const existing = await database.query.organisations.findFirst({ where: eq(organisations.slug, scenario.slug) });
     if (existing) {
