@@ -84,20 +84,32 @@ export function buildChecklist(lines: readonly CheckableLine[]): ChecklistItem[]
   return items;
 }
 
-export type CheckAnswer = { key: string; result: CheckResult; note?: string | null };
+export type CheckAnswer = { key: string; result: CheckResult; note?: string | null | undefined; label?: string | undefined };
+
+export type CheckedAnswer = CheckAnswer & { label: string; lineKey?: string };
 
 /**
  * Checks a set of answers against the checklist: every item answered once, no unknown items,
  * and a note on every fault (a fault with no words helps nobody). Returns the answers in
- * checklist order.
+ * checklist order, each with its item's label.
+ *
+ * `tolerateLineDrift`: a phone may have loaded the checklist before the vehicle's standard
+ * changed and sent the check hours later. Then a standard line the phone showed but the
+ * checklist no longer has is kept (with the label the phone sent), and a line added since is
+ * not demanded. The general items are always demanded.
  */
-export function checkAnswers(checklist: readonly ChecklistItem[], answers: readonly CheckAnswer[]): CheckAnswer[] {
+export function checkAnswers(
+  checklist: readonly ChecklistItem[],
+  answers: readonly CheckAnswer[],
+  options: { tolerateLineDrift?: boolean } = {},
+): CheckedAnswer[] {
   if (!Array.isArray(answers as unknown)) throw new InputError("items", "items must be a list");
+  const drift = options.tolerateLineDrift === true;
   const byKey = new Map<string, CheckAnswer>();
-  const known = new Set(checklist.map((c) => c.key));
+  const known = new Map(checklist.map((c) => [c.key, c]));
+  const strays: CheckedAnswer[] = [];
   answers.forEach((a, i) => {
     if (a === null || typeof a !== "object") throw new InputError(`items.${i}`, "an answer is required");
-    if (!known.has(a.key)) throw new InputError(`items.${i}.key`, `"${a.key}" is not on this vehicle's checklist`);
     if (byKey.has(a.key)) throw new InputError(`items.${i}.key`, `"${a.key}" is answered twice`);
     if (!(CHECK_RESULTS as readonly string[]).includes(a.result)) {
       throw new InputError(`items.${i}.result`, "answer OK, fault or not applicable");
@@ -106,12 +118,24 @@ export function checkAnswers(checklist: readonly ChecklistItem[], answers: reado
       throw new InputError(`items.${i}.note`, "Say what is wrong");
     }
     byKey.set(a.key, a);
+    if (!known.has(a.key)) {
+      const label = (a.label ?? "").trim();
+      if (!(drift && a.key.startsWith("line.") && label !== "")) {
+        throw new InputError(`items.${i}.key`, `"${a.key}" is not on this vehicle's checklist`);
+      }
+      strays.push({ ...a, label, lineKey: a.key.slice("line.".length) });
+    }
   });
-  return checklist.map((item, i) => {
+  const out: CheckedAnswer[] = [];
+  checklist.forEach((item, i) => {
     const a = byKey.get(item.key);
-    if (!a) throw new InputError("items", `Answer "${item.label}" (item ${i + 1})`);
-    return a;
+    if (!a) {
+      if (drift && item.lineKey !== undefined) return;
+      throw new InputError("items", `Answer "${item.label}" (item ${i + 1})`);
+    }
+    out.push({ ...a, label: item.label, ...(item.lineKey !== undefined ? { lineKey: item.lineKey } : {}) });
   });
+  return [...out, ...strays];
 }
 
 /** Counts of a finished check, for its summary line. */

@@ -34,7 +34,7 @@ export {
   checkAnswers,
   checkSummary,
 } from "./checklist";
-export type { CheckAnswer, CheckResult, CheckableLine, ChecklistItem } from "./checklist";
+export type { CheckAnswer, CheckedAnswer, CheckResult, CheckableLine, ChecklistItem } from "./checklist";
 export {
   checkAnswerSchema,
   clientIdSchema,

@@ -44,6 +44,8 @@ export type DefectReportInput = z.output<typeof defectReportSchema>;
 
 export const checkAnswerSchema = z.object({
   key: z.string().trim().min(1).max(200),
+  /** The item's label as the phone showed it (kept when the checklist has changed since). */
+  label: z.preprocess(blankToUndefined, z.string().trim().max(200).optional()),
   result: z.enum(CHECK_RESULTS, { error: "Answer OK, fault or not applicable" }),
   note: z.preprocess(blankToUndefined, z.string().trim().max(1000, { error: "Keep the note under 1,000 characters" }).optional()),
   /** The device id of the defect raised from this item, when one was. */

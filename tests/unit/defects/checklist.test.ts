@@ -76,3 +76,26 @@ describe("pre-trip checklist", () => {
     expect(() => checkAnswers(list, [...all, { key: "line.nope", result: "pass" }])).toThrow(/not on this vehicle's checklist/);
   });
 });
+
+describe("answers sent after the standard changed", () => {
+  const list = buildChecklist([line({ key: "fa" }), line({ key: "new", code: "CM-03", title: "Satellite messenger", category: "communications" })]);
+  const general = GENERAL_CHECK_ITEMS.map((i) => ({ key: i.key, result: "pass" as const }));
+
+  it("keeps a line the phone showed and no longer demands a line added since, when told to", () => {
+    const answers = [...general, { key: "line.fa", result: "pass" as const }, { key: "line.gone", result: "na" as const, label: "Long-range fuel tank" }];
+    expect(() => checkAnswers(list, answers)).toThrow(InputError);
+    const kept = checkAnswers(list, answers, { tolerateLineDrift: true });
+    expect(kept.map((a) => [a.key, a.label])).toEqual([
+      ...GENERAL_CHECK_ITEMS.map((i) => [i.key, i.label]),
+      ["line.fa", "First-aid kit, remote"],
+      ["line.gone", "Long-range fuel tank"],
+    ]);
+    expect(kept.at(-1)?.lineKey).toBe("gone");
+  });
+
+  it("still demands every general item and a label on a stray line", () => {
+    expect(() => checkAnswers(list, general.slice(1), { tolerateLineDrift: true })).toThrow(/Tyres and pressures/);
+    expect(() => checkAnswers(list, [...general, { key: "line.gone", result: "pass" }], { tolerateLineDrift: true })).toThrow(/not on this vehicle's checklist/);
+    expect(() => checkAnswers(list, [...general, { key: "general.other", result: "pass", label: "x" }], { tolerateLineDrift: true })).toThrow(InputError);
+  });
+});
