@@ -5,6 +5,8 @@ export type NavItem = { href: string; label: string; need: readonly [Action, Sub
 /** The app's navigation; each role sees the items its permissions allow. */
 export const NAV_ITEMS: NavItem[] = [
   { href: "/vehicles", label: "Vehicles", need: ["read", "Vehicle"] },
+  { href: "/jobs", label: "Jobs", need: ["read", "Job"], roles: ["admin", "manager", "finance", "contractor"] },
+  { href: "/approvals", label: "Approvals", need: ["approve", "FinanceApproval"] },
   { href: "/platforms", label: "Platforms", need: ["read", "Platform"], roles: ["admin", "manager", "finance"] },
   { href: "/calculators", label: "Calculators", need: ["use", "Calculator"] },
   { href: "/admin/users", label: "People", need: ["read", "User"] },
