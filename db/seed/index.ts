@@ -15,6 +15,7 @@ import { DEMO_PASSWORD, ORGANISATIONS, type DemoOrganisation } from "./scenario"
 import { demoVin, demoRegistration } from "./identifiers";
 import { seedRuleSets } from "../rule-sets";
 import { seedCosts } from "./costs";
+import { seedStandards } from "./standards";
 
 export type SeedReport = { organisations: { name: string; created: boolean }[] };
 
@@ -112,5 +113,6 @@ async function seedOrganisation(tx: Database, scenario: DemoOrganisation, passwo
       await tx.insert(vehicleDrivers).values({ vehicleId: vehicle.id, userId: driverId });
     }
   }
+  await seedStandards(tx, org.id, scenario.slug);
   await seedCosts(tx, org.id);
 }
