@@ -1,5 +1,5 @@
-import { and, asc, eq, inArray, isNotNull, ne, or, sql, type SQL } from "drizzle-orm";
-import type { Actor } from "@/lib/permissions";
+import { and, asc, eq, inArray, isNotNull, isNull, ne, sql, type SQL } from "drizzle-orm";
+import { isScoped, type Actor } from "@/lib/permissions";
 import {
   fleetVariance,
   varianceStatus,
@@ -21,9 +21,10 @@ import { vehicleScope } from "./scope";
  * Variance read from the database: rows of editions, fitments, concessions and evidence mapped
  * to the shapes of lib/variance, then judged there.
  *
- * Every loader runs the same six queries whatever the fleet size (vehicles, lines, dependencies,
- * fitments, concessions, evidence): the vehicles are named by one subquery, never one query per
- * vehicle. A fitment points at a line by key, so it is matched to the line with that key in the
+ * Every loader runs the same seven queries whatever the fleet size (vehicles, lines,
+ * dependencies, fitments, concessions, evidence by fitment, evidence by line key; an eighth only
+ * when some fitment's key is missing from its vehicle's edition): the vehicles are named by one
+ * subquery, never one query per vehicle. A fitment points at a line by key, so it is matched to the line with that key in the
  * vehicle's current edition (and becomes an extra when that edition has no such line).
  */
 
@@ -46,7 +47,8 @@ export type LoadedVehicleVariance = {
   editionId: string | null;
   /** The edition's lines in display order (empty without an edition). */
   lines: EditionLine[];
-  /** Fitments on the vehicle that have not been removed, mapped to the edition's lines. */
+  /** Fitments on the vehicle that have not been removed, mapped to the edition's lines (label is
+   * filled for extras only; a fitment for a line is named by its line). */
   fitments: Fitment[];
   concessions: Concession[];
   /** null when the vehicle has no edition assigned. */
@@ -68,24 +70,35 @@ type VehicleRow = {
 
 type EvidenceRef = { kind: EvidenceKind; status: EvidenceStatus };
 
-/** Loads and judges the vehicles matched by `where` (already scoped to the actor). */
-async function loadVariances(db: DbOrTx, where: SQL, now: Date): Promise<LoadedVehicleVariance[]> {
+/** Accepted evidence, one shared object per kind (the judgement only asks "is there an accepted one"). */
+const ACCEPTED: Record<string, EvidenceRef> = Object.fromEntries(
+  ["photo", "certificate", "weighbridge_ticket", "engineering_signoff"].map((kind) => [kind, Object.freeze({ kind, status: "accepted" }) as EvidenceRef]),
+);
+
+const EMPTY_ATTRIBUTES: Record<string, number | string> = Object.freeze({}) as Record<string, number | string>;
+
+/** One fitment as the fleet query packs it: [id, vehicleId, lineKey, label (extras only), quantity, attributes text, fittedAt, removedAt, expiresAt]. */
+type PackedFitment = [string, string, string | null, string | null, number, string, number, number | null, number | null];
+type PackedVehicle = [string, string, string | null, string, string | null];
+
+/**
+ * Loads and judges the vehicles matched by `where` (already scoped to the actor).
+ *
+ * A fleet has hundreds of thousands of fitments, and fetching them row by row costs far more than
+ * judging them, so the two large reads (vehicles, fitments) come back as one packed JSON array
+ * each and are unpacked here. `narrow` says the vehicle set is small (one vehicle, a driver's
+ * or contractor's, a filtered list): evidence is then read for those vehicles only rather than
+ * for the whole organisation.
+ */
+async function loadVariances(db: DbOrTx, orgId: string, where: SQL, now: Date, narrow: boolean): Promise<LoadedVehicleVariance[]> {
   const inVehicles = sql`(select ${vehicles.id} from ${vehicles} where ${where})`;
   const inEditions = sql`(select ${vehicles.editionId} from ${vehicles} where ${where} and ${vehicles.editionId} is not null)`;
   const nowMs = now.getTime();
 
-  const [vehicleRows, lineRows, dependencyRows, fitmentRows, concessionRows, evidenceRows] = await Promise.all([
-    db
-      .select({
-        id: vehicles.id,
-        fleetNumber: vehicles.fleetNumber,
-        depotId: vehicles.depotId,
-        platformId: vehicles.platformId,
-        editionId: vehicles.editionId,
-      })
-      .from(vehicles)
-      .where(where)
-      .orderBy(asc(vehicles.fleetNumber)) as Promise<VehicleRow[]>,
+  const [vehiclePack, lineRows, dependencyRows, fitmentPack, concessionRows, evidenceByFitmentPack, evidenceByKeyRows] = await Promise.all([
+    db.get<{ j: string | null }>(
+      sql`select json_group_array(json_array(id, fleet_number, depot_id, platform_id, edition_id)) as j from (select ${vehicles.id} as id, ${vehicles.fleetNumber} as fleet_number, ${vehicles.depotId} as depot_id, ${vehicles.platformId} as platform_id, ${vehicles.editionId} as edition_id from ${vehicles} where ${where} order by ${vehicles.fleetNumber})`,
+    ),
     db
       .select()
       .from(editionLines)
@@ -96,27 +109,12 @@ async function loadVariances(db: DbOrTx, where: SQL, now: Date): Promise<LoadedV
       .from(lineDependencies)
       .innerJoin(editionLines, eq(editionLines.id, lineDependencies.lineId))
       .where(inArray(editionLines.editionId, inEditions)),
-    db
-      .select({
-        id: fitments.id,
-        vehicleId: fitments.vehicleId,
-        lineKey: fitments.lineKey,
-        label: fitments.label,
-        quantity: fitments.quantity,
-        attributes: fitments.attributes,
-        fittedAt: fitments.fittedAt,
-        removedAt: fitments.removedAt,
-        expiresAt: fitments.expiresAt,
-      })
-      .from(fitments)
-      .where(
-        and(
-          inArray(fitments.vehicleId, inVehicles),
-          // A fitment removed before now counts for nothing; leave it in the database.
-          or(sql`${fitments.removedAt} is null`, sql`${fitments.removedAt} > ${nowMs}`),
-        ),
-      )
-      .orderBy(asc(fitments.fittedAt)),
+    // A fitment removed before now counts for nothing; it stays in the database.
+    db.get<{ j: string | null }>(
+      sql`select json_group_array(json_array(f.id, f.vehicle_id, f.line_key, case when f.line_key is null then f.label end, f.quantity, f.attributes, f.fitted_at, f.removed_at, f.expires_at)) as j
+          from ${fitments} f
+          where f.vehicle_id in ${inVehicles} and (f.removed_at is null or f.removed_at > ${nowMs})`,
+    ),
     db
       .select({
         vehicleId: concessions.vehicleId,
@@ -127,34 +125,41 @@ async function loadVariances(db: DbOrTx, where: SQL, now: Date): Promise<LoadedV
       })
       .from(concessions)
       .where(inArray(concessions.vehicleId, inVehicles)),
+    // Only accepted evidence changes a judgement (lodged and missing both leave a line unproven).
+    db.get<{ j: string | null }>(
+      narrow
+        ? sql`select json_group_array(json_array(e.fitment_id, e.kind)) as j from ${evidence} e
+              where e.status = 'accepted' and e.fitment_id in (select f.id from ${fitments} f where f.vehicle_id in ${inVehicles})`
+        : sql`select json_group_array(json_array(e.fitment_id, e.kind)) as j from ${evidence} e
+              where e.org_id = ${orgId} and e.status = 'accepted' and e.fitment_id is not null`,
+    ),
+    // Evidence lodged on a job for a line (not yet tied to one fitment) proves that line's fitments.
     db
-      .select({
-        fitmentId: evidence.fitmentId,
-        lineKey: evidence.lineKey,
-        kind: evidence.kind,
-        status: evidence.status,
-        jobVehicleId: jobs.vehicleId,
-      })
+      .select({ vehicleId: jobs.vehicleId, lineKey: evidence.lineKey, kind: evidence.kind })
       .from(evidence)
-      .leftJoin(jobs, eq(jobs.id, evidence.jobId))
+      .innerJoin(jobs, eq(jobs.id, evidence.jobId))
       .where(
         and(
-          ne(evidence.status, "rejected"),
-          or(
-            inArray(evidence.fitmentId, sql`(select ${fitments.id} from ${fitments} where ${fitments.vehicleId} in ${inVehicles})`),
-            and(isNotNull(evidence.lineKey), inArray(jobs.vehicleId, inVehicles)),
-          ),
+          eq(evidence.orgId, orgId),
+          eq(evidence.status, "accepted"),
+          isNull(evidence.fitmentId),
+          isNotNull(evidence.lineKey),
+          inArray(jobs.vehicleId, inVehicles),
         ),
       ),
   ]);
 
+  const vehicleRows: VehicleRow[] = (unpack<PackedVehicle>(vehiclePack)).map(([id, fleetNumber, depotId, platformId, editionId]) => ({
+    id,
+    fleetNumber,
+    depotId,
+    platformId,
+    editionId,
+  }));
+
   // Lines by edition, with their dependencies.
   const dependsOn = new Map<string, string[]>();
-  for (const d of dependencyRows) {
-    const list = dependsOn.get(d.lineId);
-    if (list) list.push(d.dependsOnLineId);
-    else dependsOn.set(d.lineId, [d.dependsOnLineId]);
-  }
+  for (const d of dependencyRows) push(dependsOn, d.lineId, d.dependsOnLineId);
   const linesByEdition = new Map<string, EditionLine[]>();
   const lineIdByEditionKey = new Map<string, Map<string, string>>();
   for (const row of lineRows) {
@@ -169,36 +174,64 @@ async function loadVariances(db: DbOrTx, where: SQL, now: Date): Promise<LoadedV
     lineIdByEditionKey.get(row.editionId)!.set(row.key, row.id);
   }
 
-  // Evidence by fitment, and by vehicle + line key (evidence lodged on a job for a line).
   const evidenceByFitment = new Map<string, EvidenceRef[]>();
+  for (const [fitmentId, kind] of unpack<[string, string]>(evidenceByFitmentPack)) {
+    const ref = ACCEPTED[kind];
+    if (ref) push(evidenceByFitment, fitmentId, ref);
+  }
   const evidenceByVehicleKey = new Map<string, EvidenceRef[]>();
-  for (const e of evidenceRows) {
-    const ref: EvidenceRef = { kind: e.kind, status: e.status };
-    if (e.fitmentId) push(evidenceByFitment, e.fitmentId, ref);
-    else if (e.lineKey && e.jobVehicleId) push(evidenceByVehicleKey, `${e.jobVehicleId}\u0000${e.lineKey}`, ref);
+  for (const e of evidenceByKeyRows) {
+    const ref = ACCEPTED[e.kind];
+    if (ref && e.lineKey) push(evidenceByVehicleKey, `${e.vehicleId}\u0000${e.lineKey}`, ref);
   }
 
   const vehicleById = new Map(vehicleRows.map((v) => [v.id, v]));
   const fitmentsByVehicle = new Map<string, Fitment[]>();
-  for (const f of fitmentRows) {
-    const vehicle = vehicleById.get(f.vehicleId);
+  const unlabelled: Fitment[] = [];
+  // Fitments of one fleet repeat the same attributes and dates over and over: read each once.
+  const attributesOf = new Map<string, Record<string, number | string>>([["{}", EMPTY_ATTRIBUTES]]);
+  const dateOf = new Map<number, Date>();
+  const readAttributes = (text: string | null) => {
+    if (!text) return EMPTY_ATTRIBUTES;
+    let value = attributesOf.get(text);
+    if (!value) attributesOf.set(text, (value = Object.freeze(JSON.parse(text) as Record<string, number | string>)));
+    return value;
+  };
+  const readDate = (ms: number) => {
+    let value = dateOf.get(ms);
+    if (!value) dateOf.set(ms, (value = new Date(ms)));
+    return value;
+  };
+  for (const [id, vehicleId, lineKey, label, quantity, attributes, fittedAt, removedAt, expiresAt] of unpack<PackedFitment>(fitmentPack)) {
+    const vehicle = vehicleById.get(vehicleId);
     if (!vehicle) continue;
     const keys = vehicle.editionId ? lineIdByEditionKey.get(vehicle.editionId) : undefined;
-    const lineId = f.lineKey && keys ? (keys.get(f.lineKey) ?? null) : null;
-    const own = evidenceByFitment.get(f.id);
-    const byKey = f.lineKey ? evidenceByVehicleKey.get(`${f.vehicleId}\u0000${f.lineKey}`) : undefined;
+    const lineId = lineKey && keys ? (keys.get(lineKey) ?? null) : null;
+    const own = evidenceByFitment.get(id);
+    const byKey = lineKey && evidenceByVehicleKey.size > 0 ? evidenceByVehicleKey.get(`${vehicleId}\u0000${lineKey}`) : undefined;
     const fitment: Fitment = {
-      id: f.id,
+      id,
       lineId,
-      label: f.label,
-      quantity: f.quantity,
-      attributes: f.attributes ?? {},
-      fittedAt: f.fittedAt,
-      removedAt: f.removedAt,
-      expiresAt: f.expiresAt,
+      label: label ?? "",
+      quantity,
+      attributes: readAttributes(attributes),
+      fittedAt: readDate(fittedAt),
+      removedAt: removedAt === null ? null : readDate(removedAt),
+      expiresAt: expiresAt === null ? null : readDate(expiresAt),
       evidence: own && byKey ? [...own, ...byKey] : (own ?? byKey ?? []),
     };
-    push(fitmentsByVehicle, f.vehicleId, fitment);
+    // An extra keeps its own label; a fitment for a line is named by the line.
+    if (lineId === null && label === null) unlabelled.push(fitment);
+    push(fitmentsByVehicle, vehicleId, fitment);
+  }
+  if (unlabelled.length > 0) {
+    // Fitments whose key the vehicle's current edition does not have: they show as extras, by label.
+    const labels = await db
+      .select({ id: fitments.id, label: fitments.label })
+      .from(fitments)
+      .where(inArray(fitments.id, sql`(select value from json_each(${JSON.stringify(unlabelled.map((f) => f.id))}))`));
+    const labelOf = new Map(labels.map((l) => [l.id, l.label]));
+    for (const f of unlabelled) f.label = labelOf.get(f.id) ?? f.label;
   }
 
   const concessionsByVehicle = new Map<string, Concession[]>();
@@ -229,6 +262,10 @@ async function loadVariances(db: DbOrTx, where: SQL, now: Date): Promise<LoadedV
         : null,
     };
   });
+}
+
+function unpack<T>(row: { j: string | null } | undefined): T[] {
+  return row?.j ? (JSON.parse(row.j) as T[]) : [];
 }
 
 function push<T>(map: Map<string, T[]>, key: string, value: T): void {
@@ -285,7 +322,7 @@ export async function loadVehicleVariance(
   vehicleId: string,
   now: Date,
 ): Promise<LoadedVehicleVariance | null> {
-  const [one] = await loadVariances(db, and(vehicleScope(actor), eq(vehicles.id, vehicleId))!, now);
+  const [one] = await loadVariances(db, actor.orgId, and(vehicleScope(actor), eq(vehicles.id, vehicleId))!, now, true);
   return one ?? null;
 }
 
@@ -296,7 +333,8 @@ export async function loadFleetVariance(
   filter: VarianceFilter | undefined,
   now: Date,
 ): Promise<LoadedFleetVariance> {
-  const details = await loadVariances(db, filterWhere(actor, filter), now);
+  const narrow = isScoped(actor, "read", "Variance") || Boolean(filter?.depotId || filter?.platformId || filter?.editionId || filter?.standardId || filter?.state);
+  const details = await loadVariances(db, actor.orgId, filterWhere(actor, filter), now, narrow);
   const fleet = fleetVariance(
     details.map((d) => ({ vehicleId: d.vehicleId, depotId: d.depotId, platformId: d.platformId, variance: d.variance })),
   );
@@ -317,7 +355,7 @@ export async function varianceStatusByVehicle(
   if (vehicleIds.length === 0) return out;
   // One bound parameter for any number of ids (SQLite caps bound parameters per statement).
   const ids = sql`(select value from json_each(${JSON.stringify([...new Set(vehicleIds)])}))`;
-  const details = await loadVariances(db, and(vehicleScope(actor), inArray(vehicles.id, ids))!, now);
+  const details = await loadVariances(db, actor.orgId, and(vehicleScope(actor), inArray(vehicles.id, ids))!, now, vehicleIds.length < 1000);
   for (const d of details) out.set(d.vehicleId, varianceStatus(d.variance));
   return out;
 }
