@@ -14,6 +14,7 @@ export const NAV_ITEMS: NavItem[] = [
   { href: "/admin/depots", label: "Depots", need: ["read", "Depot"], roles: ["admin", "manager", "finance"] },
   { href: "/admin/firms", label: "Workshops", need: ["read", "Firm"] },
   { href: "/admin/settings", label: "Settings", need: ["read", "OrgSettings"] },
+  { href: "/admin/rules", label: "Rule sets", need: ["read", "OrgSettings"] },
   { href: "/admin/mailbox", label: "Mailbox", need: ["read", "DevMailbox"], devOnly: true },
 ];
 
