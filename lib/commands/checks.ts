@@ -9,7 +9,8 @@ import { InputError } from "@/lib/errors";
 import { notFound } from "@/lib/server/errors";
 import { command, execute, query } from "@/lib/server/operation";
 import { storage } from "@/lib/server/storage";
-import { AlreadyRecorded, reportedTime, sameReportOrConflict, storePhotos, type StoredPhoto } from "./defects";
+import { AlreadyRecorded, defectWrites, reportedTime, sameReportOrConflict, storePhotos, type StoredPhoto } from "./defects";
+import { oneAtATime } from "./jobs";
 
 /** At most this many photos on one item, and on one check. */
 export const MAX_PHOTOS_PER_ITEM = 3;
@@ -155,7 +156,7 @@ export const submitCheck = query({
       for (const p of await storePhotos(user.orgId, list, `photos.${itemKey}`)) storedPhotos.push({ ...p, itemKey });
     }
     try {
-      return { check: await execute(recordCheck, user, { ...check, storedPhotos }), created: true };
+      return { check: await oneAtATime(defectWrites(user.orgId), () => execute(recordCheck, user, { ...check, storedPhotos })), created: true };
     } catch (error) {
       if (!(error instanceof AlreadyRecorded)) throw error;
       return { check: toSummary(error.record as typeof preTripChecks.$inferSelect), created: false };

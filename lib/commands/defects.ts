@@ -39,6 +39,7 @@ import { command, execute, query } from "@/lib/server/operation";
 import type { SignedIn } from "@/lib/server/session";
 import { sha256OfBytes, storage } from "@/lib/server/storage";
 import { checkUploadSize, checkUploadType, displayFileName, evidenceStorageKey } from "@/lib/uploads";
+import { oneAtATime } from "./jobs";
 import { appUrl } from "./links";
 
 // ─── Photos ─────────────────────────────────────────────────────────────────────
@@ -339,13 +340,23 @@ export const submitDefect = query({
     const { photos, ...report } = input;
     const storedPhotos = await storePhotos(user.orgId, photos, "photos");
     try {
-      return { ...(await execute(recordDefect, user, { ...report, storedPhotos })), created: true };
+      return { ...(await oneAtATime(defectWrites(user.orgId), () => execute(recordDefect, user, { ...report, storedPhotos }))), created: true };
     } catch (error) {
       if (!(error instanceof AlreadyRecorded)) throw error;
       return repeat(error.record as DefectRow);
     }
   },
 });
+
+/**
+ * The key that queues this organisation's defect and check writes in this process. The local
+ * SQLite driver blocks the process while it waits for a busy database, so two writers at once
+ * would time out instead of waiting; queued, the second sees the first's row (a repeat answers
+ * 200, a stale move 409). Separate server processes queue on the database lock itself.
+ */
+export const defectWrites = (orgId: string) => `defects:${orgId}`;
+
+
 
 // ─── Reading ────────────────────────────────────────────────────────────────────
 
@@ -510,4 +521,15 @@ export const moveDefect = command({
     });
     return { id: after.id, state: after.state, version: after.version, jobId: after.jobId, mergedIntoId: after.mergedIntoId, closeReason: after.closeReason };
   },
+});
+
+/**
+ * POST /api/defects/{id}/moves and the triage forms: moveDefect, queued with the organisation's
+ * other defect writes, so two managers at once give one result and one clear 409.
+ */
+export const triageDefect = query({
+  name: "defect.triage",
+  input: moveDefectInput,
+  permission: ["triage", "Defect"],
+  run: async ({ user, input }) => oneAtATime(defectWrites(user.orgId), () => execute(moveDefect, user, input)),
 });

@@ -76,6 +76,14 @@ describe("reporting a defect", () => {
     expect(audits).toHaveLength(1);
   });
 
+  it("makes one row when two copies of a report arrive at the same moment", async () => {
+    const driver = await signedInAs(database, DRIVER);
+    const body = report();
+    const answers = await Promise.all([callRoute(postDefect, { user: driver, body }), callRoute(postDefect, { user: driver, body })]);
+    expect(answers.map((a) => a.status).sort()).toEqual([200, 201]);
+    expect(await rowsWith(body.clientId)).toHaveLength(1);
+  });
+
   it("rolls back a copy that reaches the recording step after the first was written", async () => {
     // Two copies in flight both pass the early look-up; the later one meets the row at the
     // recording step, is rolled back and answered with the report already held.

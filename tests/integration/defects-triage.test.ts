@@ -102,6 +102,17 @@ describe("manager triage", () => {
     expect((await stateOf(defect.id)).state).toBe("triaged");
   });
 
+  it("gives one result and one conflict when two managers press at the same moment", async () => {
+    const defect = await reported();
+    const [a, b] = await Promise.all([
+      move(MANAGER, defect.id, { move: "triage", version: defect.version }),
+      move("manager2@mirrabel-health.example", defect.id, { move: "close", reason: "Reported twice by phone", version: defect.version }),
+    ]);
+    expect([a.status, b.status].sort()).toEqual([200, 409]);
+    const audits = await database.select().from(auditEntries).where(eq(auditEntries.entityId, defect.id));
+    expect(audits.map((x) => x.action).filter((x) => x !== "defect.report")).toHaveLength(1);
+  });
+
   it("links only an open job of the same vehicle", async () => {
     const defect = await reported();
     await move(MANAGER, defect.id, { move: "triage" });
