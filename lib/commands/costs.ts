@@ -68,7 +68,7 @@ const FROM_BEFORE_TO = { error: "The first day must not be after the last day", 
 export const costFilterSchema = z.object(filterFields).refine(fromBeforeTo, FROM_BEFORE_TO).meta({ id: "CostFilter" });
 export type CostFilterInput = z.output<typeof costFilterSchema>;
 
-export const LEDGER_PAGE_SIZE = 50;
+export const LEDGER_PAGE_SIZE = 25;
 
 export const costListSchema = z
   .object({
