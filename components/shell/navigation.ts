@@ -9,6 +9,8 @@ export const NAV_ITEMS: NavItem[] = [
   { href: "/approvals", label: "Approvals", need: ["approve", "FinanceApproval"] },
   { href: "/platforms", label: "Platforms", need: ["read", "Platform"], roles: ["admin", "manager", "finance"] },
   { href: "/imports", label: "Import", need: ["manage", "Vehicle"] },
+  { href: "/costs", label: "Costs", need: ["read", "Cost"] },
+  { href: "/budgets", label: "Budgets", need: ["read", "Cost"] },
   { href: "/calculators", label: "Calculators", need: ["use", "Calculator"] },
   { href: "/admin/users", label: "People", need: ["read", "User"] },
   { href: "/admin/depots", label: "Depots", need: ["read", "Depot"], roles: ["admin", "manager", "finance"] },
