@@ -22,6 +22,7 @@ export default async function ProfilePage() {
           <p className="text-sm text-muted">
             To change your password, <Link href="/forgot-password" className="font-semibold text-accent underline">ask for a reset link</Link>: it ends your other sessions too.
           </p>
+          <p className="text-sm text-muted">Let another system act for you: <Link href="/profile/tokens" className="font-semibold text-accent underline">API tokens</Link>.</p>
         </CardBody>
       </Card>
     </div>
