@@ -49,11 +49,18 @@ export type LoadedVehicleVariance = {
   lines: EditionLine[];
   /** Fitments on the vehicle that have not been removed, mapped to the edition's lines (label is
    * filled for extras only; a fitment for a line is named by its line). */
-  fitments: Fitment[];
+  fitments: KeyedFitment[];
+  /** Concessions on lines of the current edition. */
   concessions: Concession[];
+  /** Every concession of the vehicle by line key (also those for keys the edition lacks). */
+  concessionsByKey: KeyedConcession[];
   /** null when the vehicle has no edition assigned. */
   variance: VehicleVariance | null;
 };
+
+/** A fitment with the line key it was recorded against (null for an extra). */
+export type KeyedFitment = Fitment & { lineKey: string | null };
+export type KeyedConcession = Omit<Concession, "lineId"> & { lineKey: string };
 
 export type LoadedFleetVariance = FleetVariance & {
   /** Each vehicle's own variance, in fleet-number order. */
@@ -186,8 +193,8 @@ async function loadVariances(db: DbOrTx, orgId: string, where: SQL, now: Date, n
   }
 
   const vehicleById = new Map(vehicleRows.map((v) => [v.id, v]));
-  const fitmentsByVehicle = new Map<string, Fitment[]>();
-  const unlabelled: Fitment[] = [];
+  const fitmentsByVehicle = new Map<string, KeyedFitment[]>();
+  const unlabelled: KeyedFitment[] = [];
   // Fitments of one fleet repeat the same attributes and dates over and over: read each once.
   const attributesOf = new Map<string, Record<string, number | string>>([["{}", EMPTY_ATTRIBUTES]]);
   const dateOf = new Map<number, Date>();
@@ -209,9 +216,10 @@ async function loadVariances(db: DbOrTx, orgId: string, where: SQL, now: Date, n
     const lineId = lineKey && keys ? (keys.get(lineKey) ?? null) : null;
     const own = evidenceByFitment.get(id);
     const byKey = lineKey && evidenceByVehicleKey.size > 0 ? evidenceByVehicleKey.get(`${vehicleId}\u0000${lineKey}`) : undefined;
-    const fitment: Fitment = {
+    const fitment: KeyedFitment = {
       id,
       lineId,
+      lineKey,
       label: label ?? "",
       quantity,
       attributes: readAttributes(attributes),
@@ -235,7 +243,9 @@ async function loadVariances(db: DbOrTx, orgId: string, where: SQL, now: Date, n
   }
 
   const concessionsByVehicle = new Map<string, Concession[]>();
+  const keyedConcessions = new Map<string, KeyedConcession[]>();
   for (const c of concessionRows) {
+    push(keyedConcessions, c.vehicleId, { lineKey: c.lineKey, reason: c.reason, expiresAt: c.expiresAt, approvedBy: c.approvedBy });
     const vehicle = vehicleById.get(c.vehicleId);
     const lineId = vehicle?.editionId ? lineIdByEditionKey.get(vehicle.editionId)?.get(c.lineKey) : undefined;
     // A concession for a key the current edition does not have covers nothing.
@@ -257,6 +267,7 @@ async function loadVariances(db: DbOrTx, orgId: string, where: SQL, now: Date, n
       lines,
       fitments: vehicleFitments,
       concessions: vehicleConcessions,
+      concessionsByKey: keyedConcessions.get(v.id) ?? [],
       variance: v.editionId
         ? vehicleVariance({ lines, fitments: vehicleFitments, concessions: vehicleConcessions, now })
         : null,
@@ -341,6 +352,19 @@ export async function loadFleetVariance(
   return { ...fleet, details };
 }
 
+/** The variances of the given vehicles the actor may see (ids it may not see are left out). */
+export async function loadVariancesFor(
+  db: DbOrTx,
+  actor: Actor,
+  vehicleIds: readonly string[],
+  now: Date,
+): Promise<LoadedVehicleVariance[]> {
+  if (vehicleIds.length === 0) return [];
+  // One bound parameter for any number of ids (SQLite caps bound parameters per statement).
+  const ids = sql`(select value from json_each(${JSON.stringify([...new Set(vehicleIds)])}))`;
+  return loadVariances(db, actor.orgId, and(vehicleScope(actor), inArray(vehicles.id, ids))!, now, vehicleIds.length < 1000);
+}
+
 /**
  * meets_standard / gaps / no_edition for each of the given vehicles the actor may see (ids it
  * may not see are simply absent), for filtering and badging a register page.
@@ -352,10 +376,6 @@ export async function varianceStatusByVehicle(
   now: Date,
 ): Promise<Map<string, VehicleVarianceStatus>> {
   const out = new Map<string, VehicleVarianceStatus>();
-  if (vehicleIds.length === 0) return out;
-  // One bound parameter for any number of ids (SQLite caps bound parameters per statement).
-  const ids = sql`(select value from json_each(${JSON.stringify([...new Set(vehicleIds)])}))`;
-  const details = await loadVariances(db, actor.orgId, and(vehicleScope(actor), inArray(vehicles.id, ids))!, now, vehicleIds.length < 1000);
-  for (const d of details) out.set(d.vehicleId, varianceStatus(d.variance));
+  for (const d of await loadVariancesFor(db, actor, vehicleIds, now)) out.set(d.vehicleId, varianceStatus(d.variance));
   return out;
 }
