@@ -6,6 +6,9 @@ export type NavItem = { href: string; label: string; need: readonly [Action, Sub
 export const NAV_ITEMS: NavItem[] = [
   { href: "/vehicles", label: "Vehicles", need: ["read", "Vehicle"] },
   { href: "/jobs", label: "Jobs", need: ["read", "Job"], roles: ["admin", "manager", "finance", "contractor"] },
+  { href: "/drive", label: "My checks", need: ["create", "PreTripCheck"], roles: ["driver"] },
+  { href: "/drive/report", label: "Report a defect", need: ["create", "Defect"], roles: ["driver"] },
+  { href: "/defects", label: "Defects", need: ["triage", "Defect"], roles: ["manager"] },
   { href: "/approvals", label: "Approvals", need: ["approve", "FinanceApproval"] },
   { href: "/platforms", label: "Platforms", need: ["read", "Platform"], roles: ["admin", "manager", "finance"] },
   { href: "/imports", label: "Import", need: ["manage", "Vehicle"] },
