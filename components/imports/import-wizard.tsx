@@ -61,8 +61,9 @@ export function ImportWizard() {
         setEdited(new Set());
       } else {
         setOutcome(result);
-        router.refresh();
       }
+      // Every check and import is in the history below.
+      router.refresh();
     } catch (caught) {
       setError({
         at: dryRun ? "check" : "commit",
@@ -216,6 +217,17 @@ export function ImportWizard() {
                     ))}
                   </ul>
                 </div>
+              )}
+
+              {check.unknownDepots.length > 0 && (
+                <FormMessage tone="info" label="Unknown depots" data-testid="unknown-depots">
+                  The file names {check.unknownDepots.length === 1 ? "a depot" : "depots"} this organisation does not have:{" "}
+                  {check.unknownDepots.join("; ")}. Correct those cells, have the depots added under{" "}
+                  <Link href="/admin/depots" className="underline underline-offset-4">
+                    Depots
+                  </Link>
+                  {check.depotColumn ? `, or choose Not imported for the column "${check.depotColumn}" to import the vehicles without a depot` : ""}.
+                </FormMessage>
               )}
 
               {check.errors.length > 0 && (

@@ -28,6 +28,8 @@ import {
   type ExistingVehicle,
   type FieldValue,
   type HeaderMapping,
+  type HeaderMatch,
+  type RowValidation,
   type ParsedSpreadsheet,
   type PlatformRatingField,
   type UpsertField,
@@ -188,6 +190,10 @@ export type ImportResult = {
   unchanged: number;
   errors: ImportRowError[];
   unknownColumns: string[];
+  /** Depot names or codes in the file that match none of the organisation's depots. */
+  unknownDepots: string[];
+  /** The file's heading read as the depot, if any (to suggest not importing it). */
+  depotColumn: string | null;
   newPlatforms: ImportNewPlatform[];
   /** Every fleet-number column is matched, so rows could be read. */
   ready: boolean;
@@ -217,13 +223,13 @@ function depotResolver(register: RegisterForImport) {
   const byCode = new Map(register.depots.map((d) => [norm(d.code), d]));
   const byName = new Map<string, (typeof register.depots)[number][]>();
   for (const depot of register.depots) byName.set(norm(depot.name), [...(byName.get(norm(depot.name)) ?? []), depot]);
-  return (value: string): { id: string } | { error: string } => {
+  return (value: string): { id: string } | { error: string; unknown?: true } => {
     const code = byCode.get(norm(value));
     if (code) return { id: code.id };
     const named = byName.get(norm(value)) ?? [];
     if (named.length === 1) return { id: named[0]!.id };
     if (named.length > 1) return { error: `Depot "${value}" names ${named.length} depots; use the depot's code` };
-    return { error: `Depot "${value}" is not a depot of this organisation (by name or code); add it under Depots or correct the cell` };
+    return { error: `Depot "${value}" is not a depot of this organisation (by name or code); correct the cell or have the depot added under Depots`, unknown: true };
   };
 }
 
@@ -234,31 +240,54 @@ function cellText(value: CellValue): string | null {
 }
 
 type Analysis = {
-  match: ReturnType<typeof matchHeaders>;
+  match: HeaderMatch;
   sources: Record<string, MappingSource>;
   savedMappingUsed: boolean;
   errors: ImportRowError[];
+  /** Depot names or codes the file gives that match no depot, in file order. */
+  unknownDepots: string[];
   plan: UpsertPlan | null;
   /** Rows the final plan was made from (depot already resolved to its id). */
   rows: ValidRow[];
 };
 
-function analyse(upload: PreparedUpload, register: RegisterForImport, saved: Record<string, string | null> | null, now: Date): Analysis {
-  const { parsed } = upload;
+/** What the file alone says: the column matching and each row's own checks (no register needed). */
+export type CheckedUpload = {
+  match: HeaderMatch;
+  sources: Record<string, MappingSource>;
+  savedMappingUsed: boolean;
+  /** null when no column feeds a required field. */
+  validation: RowValidation | null;
+};
+
+/** Matches the columns (the user's mapping, else the saved one, else automatic) and checks each row. */
+export function checkUpload(upload: PreparedUpload, saved: Record<string, string | null> | null, now: Date): CheckedUpload {
   const requested = upload.mapping ?? saved ?? undefined;
-  const match = matchHeaders(parsed.headers, requested);
+  const match = matchHeaders(upload.parsed.headers, requested);
   const sources: Record<string, MappingSource> = {};
   for (const [heading, source] of Object.entries(match.sources)) {
     sources[heading] = source === "automatic" ? "automatic" : upload.mapping ? "chosen" : "saved";
   }
-  const savedMappingUsed = upload.mapping === null && saved !== null;
-  if (!match.ready) {
+  return {
+    match,
+    sources,
+    savedMappingUsed: upload.mapping === null && saved !== null,
+    validation: match.ready ? validateRows(upload.parsed, match.mapping, { now }) : null,
+  };
+}
+
+/** Plans the checked rows against the register as the transaction sees it. */
+function analyse(upload: PreparedUpload, checked: CheckedUpload, register: RegisterForImport): Analysis {
+  const { parsed } = upload;
+  const { match, sources, savedMappingUsed, validation } = checked;
+  if (!validation) {
     const missing = match.missingRequired.map((field) => VEHICLE_FIELD_INFO[field].label).join(", ");
     return {
       match,
       sources,
       savedMappingUsed,
       errors: [{ row: parsed.headerRowNumber, column: "", message: `No column is matched to ${missing}; choose the column that holds it` }],
+      unknownDepots: [],
       plan: null,
       rows: [],
     };
@@ -268,11 +297,11 @@ function analyse(upload: PreparedUpload, register: RegisterForImport, saved: Rec
   for (const [heading, field] of Object.entries(match.mapping)) if (field) columnOf.set(field, heading);
   const column = (field: VehicleField) => columnOf.get(field) ?? VEHICLE_FIELD_INFO[field].label;
 
-  const validation = validateRows(parsed, match.mapping, { now });
   const errors: ImportRowError[] = validation.errors.map((e) => ({ row: e.row, column: e.column, message: e.message }));
 
   // Depots by code or name; the plan then compares depot ids, so "OCW" and "Ochre Well" are one depot.
   const resolveDepot = depotResolver(register);
+  const unknownDepots = new Set<string>();
   let candidates: ValidRow[] = [];
   for (const row of validation.valid) {
     if (row.values.depot === null) {
@@ -280,7 +309,10 @@ function analyse(upload: PreparedUpload, register: RegisterForImport, saved: Rec
       continue;
     }
     const found = resolveDepot(row.values.depot);
-    if ("error" in found) errors.push({ row: row.rowNumber, column: column("depot"), message: found.error });
+    if ("error" in found) {
+      errors.push({ row: row.rowNumber, column: column("depot"), message: found.error });
+      if (found.unknown) unknownDepots.add(row.values.depot);
+    }
     else candidates.push({ rowNumber: row.rowNumber, values: { ...row.values, depot: found.id } });
   }
 
@@ -345,7 +377,7 @@ function analyse(upload: PreparedUpload, register: RegisterForImport, saved: Rec
     if (planned.action === "error") errors.push({ row: planned.rowNumber, column: column(planned.field), message: planned.message });
   }
   errors.sort((a, b) => a.row - b.row);
-  return { match, sources, savedMappingUsed, errors, plan, rows: candidates };
+  return { match, sources, savedMappingUsed, errors, unknownDepots: [...unknownDepots], plan, rows: candidates };
 }
 
 // ─── Writing ────────────────────────────────────────────────────────────────────
@@ -513,12 +545,14 @@ async function writePlan(
 
 // ─── The command ────────────────────────────────────────────────────────────────
 
+const checkedUpload = z.custom<CheckedUpload>((v) => typeof v === "object" && v !== null && "match" in v, { error: "The file was not checked" });
+
 const preparedUpload = z.custom<PreparedUpload>(
   (v) => typeof v === "object" && v !== null && Buffer.isBuffer((v as PreparedUpload).bytes) && typeof (v as PreparedUpload).parsed === "object",
   { error: "No file was read" },
 );
 
-function describe(result: Pick<ImportResult, "dryRun" | "ready" | "totalRows" | "created" | "updated" | "unchanged" | "errors">): string {
+function summarise(result: Pick<ImportResult, "dryRun" | "ready" | "totalRows" | "created" | "updated" | "unchanged" | "errors">): string {
   if (!result.ready) return "Choose the column that holds the fleet number, then check again.";
   const bad = new Set(result.errors.map((e) => e.row)).size;
   const badText = bad === 0 ? "" : `; ${bad} ${bad === 1 ? "row has" : "rows have"} errors and ${result.dryRun ? "would be" : "were"} left out`;
@@ -534,15 +568,14 @@ function describe(result: Pick<ImportResult, "dryRun" | "ready" | "totalRows" | 
 /** Plans (and, unless a dry run, writes) the import in one transaction, and records it. */
 export const runVehicleImport = command({
   name: "vehicle.import",
-  input: z.object({ upload: preparedUpload, storageKey: z.string().min(1) }),
+  input: z.object({ upload: preparedUpload, checked: checkedUpload, storageKey: z.string().min(1) }),
   permission: ["manage", "Vehicle"],
   run: async ({ user, input, tx, audit, now }): Promise<ImportResult> => {
-    const { upload, storageKey } = input;
+    const { upload, checked, storageKey } = input;
     const { parsed } = upload;
     const signature = headerSignature(parsed.headers);
     const register = await loadRegisterForImport(tx, user.orgId);
-    const saved = upload.mapping ? null : await findSavedMapping(tx, user.orgId, signature);
-    const analysis = analyse(upload, register, saved?.mapping ?? null, now);
+    const analysis = analyse(upload, checked, register);
     const { match, plan } = analysis;
 
     if (!upload.dryRun) {
@@ -567,9 +600,10 @@ export const runVehicleImport = command({
     const depotLabel = new Map(register.depots.map((d) => [d.id, `${d.name} (${d.code})`]));
     const showValue = (field: UpsertField, value: FieldValue) =>
       field === "depot" && typeof value === "string" ? (depotLabel.get(value) ?? value) : value;
+    const valuesOf = new Map(analysis.rows.map((r) => [r.rowNumber, r.values]));
     const rows: ImportRowOutcome[] = (plan?.rows ?? []).flatMap((planned): ImportRowOutcome[] => {
       if (planned.action === "error") return [];
-      const values = analysis.rows.find((r) => r.rowNumber === planned.rowNumber)?.values;
+      const values = valuesOf.get(planned.rowNumber);
       const base = {
         row: planned.rowNumber,
         fleetNumber: values?.fleetNumber ?? "",
@@ -659,6 +693,8 @@ export const runVehicleImport = command({
       unchanged: counts.unchanged,
       errors: analysis.errors,
       unknownColumns: match.unknown,
+      unknownDepots: analysis.unknownDepots,
+      depotColumn: Object.entries(match.mapping).find(([, field]) => field === "depot")?.[0] ?? null,
       newPlatforms: (plan?.newPlatforms ?? []).map((p) => ({
         make: p.make,
         model: p.model,
@@ -681,7 +717,7 @@ export const runVehicleImport = command({
         cells: Object.fromEntries(parsed.headers.map((h) => [h, cellText(row.cells[h] ?? null)])),
       })),
       rows,
-      summary: describe(summaryInput),
+      summary: summarise(summaryInput),
     };
   },
 });
@@ -704,9 +740,13 @@ async function keepOriginal(orgId: string, upload: PreparedUpload): Promise<{ ke
  */
 export async function importVehicleFile(user: SignedIn | null, raw: unknown): Promise<ImportResult> {
   const upload = await execute(readVehicleUpload, user, raw);
-  const stored = await keepOriginal(user!.orgId, upload);
+  const orgId = user!.orgId;
+  // The file's own checks run before the transaction, so it is held only for the plan and the writes.
+  const saved = upload.mapping ? null : await findSavedMapping(db(), orgId, headerSignature(upload.parsed.headers));
+  const checked = checkUpload(upload, saved?.mapping ?? null, new Date());
+  const stored = await keepOriginal(orgId, upload);
   try {
-    return await execute(runVehicleImport, user, { upload, storageKey: stored.key });
+    return await execute(runVehicleImport, user, { upload, checked, storageKey: stored.key });
   } catch (error) {
     if (stored.fresh) await storage().delete(stored.key).catch(() => undefined);
     throw error;

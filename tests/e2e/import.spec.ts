@@ -57,6 +57,7 @@ test.describe("a manager imports the messy register", () => {
     // The dry run lists every bad row: none of this organisation's depots is named in the file.
     const errors = page.getByTestId("row-errors");
     await expect(errors).toContainText('Depot "Mulga Creek" is not a depot of this organisation');
+    await expect(page.getByTestId("unknown-depots")).toContainText('choose Not imported for the column "Base"');
     await expect(errors).toContainText("A VIN has 17 characters; this one has 16.");
     await expect(errors).toContainText("Odometer is -1,250 km; it cannot be negative");
     await expect(errors).toContainText("Row 9 repeats row 5 exactly; only row 5 is imported");

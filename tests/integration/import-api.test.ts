@@ -68,10 +68,12 @@ describe("vehicle import: the messy CSV sample", () => {
     expect(result.mapping["Chassis No."]).toBe("vin");
     expect(result.mapping["Base"]).toBe("depot");
     expect(result.unknownColumns).toEqual(["Fuel card"]);
+    expect(result.unknownDepots).toEqual(["Gibber Flat, North Yard"]);
+    expect(result.depotColumn).toBe("Base");
     // 9 data rows: the blank rows are not counted; the quoted line break stays inside row 3.
     expect(result.totalRows).toBe(9);
     expect(result.errors).toEqual([
-      { row: 5, column: "Base", message: 'Depot "Gibber Flat, North Yard" is not a depot of this organisation (by name or code); add it under Depots or correct the cell' },
+      { row: 5, column: "Base", message: 'Depot "Gibber Flat, North Yard" is not a depot of this organisation (by name or code); correct the cell or have the depot added under Depots' },
       // ISO 3779 (S): a VIN has 17 characters.
       { row: 6, column: "Chassis No.", message: "A VIN has 17 characters; this one has 16." },
       { row: 7, column: "Odo (km)", message: "Odometer is -1,250 km; it cannot be negative" },

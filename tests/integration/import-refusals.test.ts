@@ -86,6 +86,16 @@ describe("refused files answer in the one error shape and change nothing", () =>
     expect(await snapshot()).toEqual(before);
   });
 
+  it("an upload whose declared length is far above the limit: 413 before the body is read", async () => {
+    const { status, json } = await callRoute(importRoute, {
+      user: manager,
+      body: "not read",
+      headers: { "content-type": "multipart/form-data; boundary=x", "content-length": String(DEFAULT_MAX_BYTES * 2) },
+    });
+    expect(status).toBe(413);
+    expect((json as ErrorJson).error.code).toBe("payload_too_large");
+  });
+
   it("a PNG sent as a CSV: 415, judged by its bytes, not its name", async () => {
     const before = await snapshot();
     const { status, json } = await upload(png, "register.csv");

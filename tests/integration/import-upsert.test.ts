@@ -103,7 +103,7 @@ describe("upsert into the seeded register", () => {
     ]);
     const { result } = await upload(file, { mode: "good_rows" });
     expect(result.errors).toEqual([
-      { row: 4, column: "Depot", message: 'Depot "Quartz Hill" is not a depot of this organisation (by name or code); add it under Depots or correct the cell' },
+      { row: 4, column: "Depot", message: 'Depot "Quartz Hill" is not a depot of this organisation (by name or code); correct the cell or have the depot added under Depots' },
     ]);
     expect((await vehicleByFleet("MH-003"))!.depot!.code).toBe("SPC");
     expect((await vehicleByFleet("MH-004"))!.depot!.code).toBe("SPC");
@@ -116,7 +116,7 @@ describe("upsert into the seeded register", () => {
     const file = csv(["Fleet number,Depot,Make,Model", "MH-006,BWX,Corvane,Trailhand 79"]);
     const { result } = await upload(file, { dryRun: "1" });
     expect(result.errors.map((e) => e.message)).toEqual([
-      'Depot "BWX" is not a depot of this organisation (by name or code); add it under Depots or correct the cell',
+      'Depot "BWX" is not a depot of this organisation (by name or code); correct the cell or have the depot added under Depots',
     ]);
     // The other organisation importing MH-007 creates its own vehicle; ours is untouched.
     const ours = (await vehicleByFleet("MH-007"))!;
