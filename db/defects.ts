@@ -1,7 +1,7 @@
 import { and, asc, count, desc, eq, inArray, sql, type SQL } from "drizzle-orm";
 import type { Actor } from "@/lib/permissions";
 import type { DbOrTx } from "./client";
-import { defects, editionLines, evidence, jobOffers, jobs, memberships, preTripChecks, users, vehicles } from "./schema";
+import { defects, editionLines, evidence, jobOffers, jobs, memberships, platforms, preTripChecks, users, vehicles } from "./schema";
 import { vehicleScope } from "./scope";
 
 /**
@@ -205,6 +205,27 @@ export async function vehicleForReport(db: DbOrTx, actor: Actor, vehicleId: stri
     .where(and(vehicleScope(actor), eq(vehicles.id, vehicleId)))
     .limit(1);
   return row ?? null;
+}
+
+/** The vehicles on a driver's screens (for a driver: those assigned), by fleet number. */
+export async function driverVehicles(db: DbOrTx, actor: Actor) {
+  return db
+    .select({
+      id: vehicles.id,
+      fleetNumber: vehicles.fleetNumber,
+      registration: vehicles.registration,
+      state: vehicles.state,
+      groundedReason: vehicles.groundedReason,
+      odometerKm: vehicles.odometerKm,
+      make: platforms.make,
+      model: platforms.model,
+      variant: platforms.variant,
+    })
+    .from(vehicles)
+    .innerJoin(platforms, eq(platforms.id, vehicles.platformId))
+    .where(and(vehicleScope(actor), sql`${vehicles.state} <> 'retired'`))
+    .orderBy(asc(vehicles.fleetNumber))
+    .limit(100);
 }
 
 // ─── Pre-trip checks ───────────────────────────────────────────────────────────

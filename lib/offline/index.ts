@@ -6,3 +6,5 @@ export { FIRST_RETRY_MS, MAX_RETRY_MS, classifyAttempt, isDue, retryDelayMs } fr
 export type { SendOutcome } from "./retry";
 export { flushQueue, sendQueued } from "./send";
 export type { SendReply } from "./send";
+export { submitReport } from "./submit";
+export type { SubmitResult } from "./submit";
