@@ -45,6 +45,8 @@ export function QuoteCompare({
 }) {
   const shown = quotes.filter((q) => q.status !== "draft");
   const drafts = quotes.length - shown.length;
+  // Once one quote is accepted or waits for finance, no other can be accepted beside it.
+  const taken = shown.find((q) => q.status === "accepted" || q.status === "awaiting_finance");
   const lowest = Math.min(...shown.filter((q) => ["submitted", "awaiting_finance", "accepted"].includes(q.status)).map((q) => q.totalCents));
   return (
     <div className="flex flex-col gap-4">
@@ -147,7 +149,11 @@ export function QuoteCompare({
                 <h3 className="font-semibold">
                   {q.firmName}: {formatCents(q.totalCents)} incl. GST
                 </h3>
-                <ActionForm action={decideQuoteAction} hidden={{ id: q.id, jobId, version: q.version, decision: "accept" }} label={`Accept ${q.firmName}`} variant="primary" testId={`accept-${q.id}`} />
+                {taken ? (
+                  <p className="text-sm text-muted">The quote of {taken.firmName} is {taken.status === "accepted" ? "accepted" : "waiting for finance"}; this one can be returned or declined.</p>
+                ) : (
+                  <ActionForm action={decideQuoteAction} hidden={{ id: q.id, jobId, version: q.version, decision: "accept" }} label={`Accept ${q.firmName}`} variant="primary" testId={`accept-${q.id}`} />
+                )}
                 <ActionForm
                   action={decideQuoteAction}
                   hidden={{ id: q.id, jobId, version: q.version, decision: "return" }}

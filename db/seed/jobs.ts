@@ -1,7 +1,7 @@
 import { createHash } from "node:crypto";
 import { mkdir, writeFile } from "node:fs/promises";
 import { dirname, resolve } from "node:path";
-import { and, asc, eq } from "drizzle-orm";
+import { and, asc, eq, isNull } from "drizzle-orm";
 import sharp from "sharp";
 import { quoteTotals, type GstMethod } from "@/lib/money";
 import { toTotalsLine, type JobState, type QuoteLineDraft, type QuoteState } from "@/lib/jobs";
@@ -36,7 +36,7 @@ import {
  */
 
 const DAY_MS = 86_400_000;
-type Gap = { key: string; code: string; title: string; category: string; standardCostCents: number; criteria: CriterionRow[]; evidenceNeeded: string[] };
+type Gap = { key: string; code: string; title: string; category: string; status: string; quantity: number; standardCostCents: number; criteria: CriterionRow[]; evidenceNeeded: string[] };
 type Person = { id: string; role: string; firmId: string | null };
 
 /** A value that meets a criterion, for the fitments of finished demo work. */
@@ -128,8 +128,9 @@ export async function seedJobs(tx: Database, orgId: string, now: Date = new Date
   if (!manager) return;
   const firms = await tx.select().from(contractorFirms).where(and(eq(contractorFirms.orgId, orgId), eq(contractorFirms.active, true))).orderBy(asc(contractorFirms.name));
   if (firms.length === 0) return;
-  // "a" and "b": the first two workshops by name (one organisation may have only one).
-  const firmOf = { a: firms[firms.length > 1 ? 1 : 0]!, b: firms[0]! };
+  // "a" and "b": workshops with contractor accounts first, so the demo sign-ins have work to see.
+  const staffed = [...firms].sort((x, y) => Number(people.some((p) => p.firmId === y.id)) - Number(people.some((p) => p.firmId === x.id)) || y.name.localeCompare(x.name));
+  const firmOf = { a: staffed[0]!, b: staffed[staffed.length > 1 ? 1 : 0]! };
   const contractorOf = (firmId: string) => people.find((p) => p.role === "contractor" && p.firmId === firmId)?.id ?? manager.id;
 
   const fleet = await loadFleetVariance(tx, { userId: manager.id, orgId, role: "manager", firmId: null, depotId: null }, undefined, now);
@@ -141,7 +142,7 @@ export async function seedJobs(tx: Database, orgId: string, now: Date = new Date
         .filter((l) => l.status === "short" || l.status === "off_spec" || l.status === "unproven")
         .map((l): Gap => {
           const line = d.lines.find((x) => x.id === l.lineId)!;
-          return { key: l.key, code: l.code, title: l.title, category: l.category, standardCostCents: l.standardCostCents || 25_000, criteria: line.criteria as CriterionRow[], evidenceNeeded: line.evidenceNeeded };
+          return { key: l.key, code: l.code, title: l.title, category: l.category, status: l.status, quantity: l.status === "short" ? Math.max(1, l.missingQuantity) : line.quantity, standardCostCents: l.standardCostCents || 25_000, criteria: line.criteria as CriterionRow[], evidenceNeeded: line.evidenceNeeded };
         }),
     }))
     .filter((x) => x.vehicle && x.vehicle.state !== "retired" && x.gaps.length > 0);
@@ -263,9 +264,11 @@ export async function seedJobs(tx: Database, orgId: string, now: Date = new Date
         const gap = picked[k % Math.max(1, picked.length)];
         let fitmentId: string | null = null;
         if (gap && (status === "accepted" || finished)) {
+          // Off-spec items are replaced by the fitted ones; unproven items are proven as they are.
+          if (gap.status === "off_spec") await tx.update(fitments).set({ removedAt: new Date(now.getTime() - 6 * DAY_MS) }).where(and(eq(fitments.vehicleId, vehicle.id), eq(fitments.lineKey, gap.key), isNull(fitments.removedAt)));
           const [fitment] = await tx
             .insert(fitments)
-            .values({ orgId, vehicleId: vehicle.id, lineKey: gap.key, label: gap.title, quantity: 1, attributes: satisfying(gap.criteria), fittedAt: new Date(now.getTime() - 6 * DAY_MS), recordedBy: uploader })
+            .values({ orgId, vehicleId: vehicle.id, lineKey: gap.key, label: gap.title, quantity: gap.quantity, attributes: satisfying(gap.criteria), fittedAt: new Date(now.getTime() - 6 * DAY_MS), recordedBy: uploader })
             .returning({ id: fitments.id });
           fitmentId = fitment!.id;
         }
