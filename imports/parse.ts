@@ -40,12 +40,12 @@ export interface ParseOptions {
   filename?: string;
   /** Largest accepted upload; default 10 MiB. */
   maxBytes?: number;
-  /** Most data rows accepted (header, title and blank rows not counted); default 5,000. */
+  /** Most data rows accepted (header, title and blank rows not counted); default 20,000. */
   maxRows?: number;
 }
 
 export const DEFAULT_MAX_BYTES = 10 * 1024 * 1024;
-export const DEFAULT_MAX_ROWS = 5000;
+export const DEFAULT_MAX_ROWS = 20_000;
 /** The header is looked for among this many non-blank rows at the top of the sheet. */
 const HEADER_SEARCH_ROWS = 20;
 

@@ -109,7 +109,7 @@ export function ImportWizard() {
       <Card>
         <CardHeader
           title="1. Choose the file"
-          description="A CSV or XLSX vehicle register, up to 10 MB and 5,000 rows. Nothing is written until you press Import."
+          description="A CSV or XLSX vehicle register, up to 10 MB and 20,000 rows. Nothing is written until you press Import."
         />
         <CardBody className="flex flex-col gap-4">
           <div className="flex flex-wrap items-center gap-3">

@@ -125,7 +125,7 @@ describe("refused files answer in the one error shape and change nothing", () =>
     for (let i = 0; i <= DEFAULT_MAX_ROWS; i++) lines.push(`EX-${i}`);
     const { status, json } = await upload(csv(lines), "many.csv", { dryRun: "1" });
     expect(status).toBe(422);
-    expect(json.error.message).toMatch(/5,?000/);
+    expect(json.error.message).toMatch(/20,?000/);
     expect(await snapshot()).toEqual(before);
   });
 
