@@ -1,8 +1,10 @@
 /** `npm run bench`: every benchmark, each printed with its same-run baseline and the ratio. */
+import "./server-only-shim";
 import { report, type BenchResult } from "./support";
 
 const benches: [string, () => Promise<BenchResult[]>][] = [
   ["variance", async () => (await import("./variance")).run()],
+  ["import", async () => (await import("./import")).run()],
   [
     "export",
     async () => {
