@@ -15,6 +15,7 @@ import { DEMO_PASSWORD, ORGANISATIONS, type DemoOrganisation } from "./scenario"
 import { demoVin, demoRegistration } from "./identifiers";
 import { seedRuleSets } from "../rule-sets";
 import { seedCosts } from "./costs";
+import { seedDefects } from "./defects";
 import { seedJobs } from "./jobs";
 import { seedStandards } from "./standards";
 
@@ -117,4 +118,5 @@ async function seedOrganisation(tx: Database, scenario: DemoOrganisation, passwo
   await seedStandards(tx, org.id, scenario.slug);
   await seedCosts(tx, org.id);
   await seedJobs(tx, org.id);
+  await seedDefects(tx, org.id);
 }
