@@ -2,7 +2,9 @@ import { and, asc, desc, eq, gte, lt, lte, sql, type SQL } from "drizzle-orm";
 import type { LedgerEntry } from "@/lib/exports";
 import type { Actor } from "@/lib/permissions";
 import type { DbOrTx } from "./client";
-import { budgets, costs, depots, fleetSnapshots, jobs, vehicles } from "./schema";
+import { fleetReadinessCounts } from "./readiness";
+import { budgets, costs, depots, editions, fleetSnapshots, jobs, platforms, standards, vehicles } from "./schema";
+import { loadFleetVariance } from "./variance";
 
 /**
  * The cost ledger, budgets and daily fleet figures. Every query is inside the actor's
@@ -283,7 +285,10 @@ export async function listFleetSnapshots(db: DbOrTx, actor: Actor, fromDay?: str
  * it twice on one day keeps the later figures.
  */
 export async function recordFleetSnapshot(db: DbOrTx, orgId: string, snapshot: FleetSnapshot): Promise<void> {
-  if (!/^\d{4}-\d{2}-\d{2}$/.test(snapshot.day)) throw new Error(`snapshot day must be YYYY-MM-DD, got ${snapshot.day}`);
+  const asDate = new Date(`${snapshot.day}T00:00:00.000Z`);
+  if (!/^\d{4}-\d{2}-\d{2}$/.test(snapshot.day) || Number.isNaN(asDate.getTime()) || asDate.toISOString().slice(0, 10) !== snapshot.day) {
+    throw new Error(`snapshot day must be a real date YYYY-MM-DD, got ${snapshot.day}`);
+  }
   for (const key of ["ready", "limited", "notReady", "meetingStandard", "openGaps"] as const) {
     if (!Number.isSafeInteger(snapshot[key]) || snapshot[key] < 0) throw new Error(`snapshot ${key} must be a whole number ≥ 0`);
   }
@@ -292,4 +297,45 @@ export async function recordFleetSnapshot(db: DbOrTx, orgId: string, snapshot: F
     .insert(fleetSnapshots)
     .values({ orgId, day, ...figures })
     .onConflictDoUpdate({ target: [fleetSnapshots.orgId, fleetSnapshots.day], set: figures });
+}
+
+/** Today's fleet figures from the live readiness and variance of every vehicle (retired left out). */
+export async function fleetFiguresNow(db: DbOrTx, orgId: string, now: Date): Promise<FleetSnapshot> {
+  // The figures are the whole organisation's, whoever asks: an organisation-wide view.
+  const orgWide: Actor = { userId: "fleet-snapshot", orgId, role: "admin", firmId: null, depotId: null };
+  const [readiness, variance] = await Promise.all([fleetReadinessCounts(db, orgWide, now), loadFleetVariance(db, orgWide, {}, now)]);
+  const gaps = variance.statusCounts;
+  return {
+    day: now.toISOString().slice(0, 10),
+    ready: readiness.ready,
+    limited: readiness.limited,
+    notReady: readiness.notReady,
+    meetingStandard: variance.overall.fullyMeeting,
+    openGaps: gaps.short + gaps.offSpec + gaps.unproven + gaps.prohibitedFitted,
+  };
+}
+
+/** Records today's figures for the organisation (replacing any taken earlier today). */
+export async function recordTodaysSnapshot(db: DbOrTx, orgId: string, now = new Date()): Promise<FleetSnapshot> {
+  const figures = await fleetFiguresNow(db, orgId, now);
+  await recordFleetSnapshot(db, orgId, figures);
+  return figures;
+}
+
+/** Names for the variance export: depots, platforms and "standard, edition n" of the organisation. */
+export async function varianceNames(db: DbOrTx, actor: Actor) {
+  const [depotRows, platformRows, editionRows] = await Promise.all([
+    db.select({ id: depots.id, name: depots.name }).from(depots).where(eq(depots.orgId, actor.orgId)),
+    db.select({ id: platforms.id, make: platforms.make, model: platforms.model, variant: platforms.variant }).from(platforms).where(eq(platforms.orgId, actor.orgId)),
+    db
+      .select({ id: editions.id, number: editions.number, standard: standards.name })
+      .from(editions)
+      .innerJoin(standards, eq(standards.id, editions.standardId))
+      .where(eq(editions.orgId, actor.orgId)),
+  ]);
+  return {
+    depot: new Map(depotRows.map((d) => [d.id, d.name])),
+    platform: new Map(platformRows.map((p) => [p.id, [p.make, p.model, p.variant].filter(Boolean).join(" ")])),
+    edition: new Map(editionRows.map((e) => [e.id, `${e.standard}, edition ${e.number}`])),
+  };
 }

@@ -3,6 +3,9 @@ import { and, eq } from "drizzle-orm";
 import { z } from "zod";
 import { db, type Tx } from "@/db/client";
 import {
+  fleetFiguresNow,
+  recordFleetSnapshot,
+  varianceNames,
   budgetsAgainstActual,
   costFilterOptions,
   costTotals,
@@ -17,7 +20,8 @@ import {
 import { budgets, costs, depots, vehicles } from "@/db/schema";
 import { findVehicle } from "@/db/vehicles";
 import { InputError } from "@/lib/errors";
-import { COST_CATEGORIES, COST_KINDS, COST_SOURCES, isoDay, ledgerTable, tableToCsv, tableToXlsx, XLSX_CONTENT_TYPE } from "@/lib/exports";
+import { loadFleetVariance } from "@/db/variance";
+import { COST_CATEGORIES, COST_KINDS, COST_SOURCES, isoDay, ledgerTable, tableToCsv, tableToXlsx, varianceTable, XLSX_CONTENT_TYPE } from "@/lib/exports";
 import { gstInInclusive, gstOnExclusive, parseMoneyToCents } from "@/lib/money";
 import { AppError, conflict, forbidden, notFound } from "@/lib/server/errors";
 import { command, query } from "@/lib/server/operation";
@@ -339,6 +343,45 @@ export const exportLedger = query({
   },
 });
 
+export const varianceExportSchema = z
+  .object({
+    format: formatField,
+    depotId: optionalParam(64).meta({ description: "Only vehicles of this depot" }),
+    platformId: optionalParam(64).meta({ description: "Only vehicles of this platform" }),
+    standardId: optionalParam(64).meta({ description: "Only vehicles on an edition of this standard" }),
+    editionId: optionalParam(64).meta({ description: "Only vehicles on this edition" }),
+  })
+  .meta({ id: "VarianceExportQuery" });
+
+/** GET /api/variance/export — every vehicle's variance against its edition, as CSV or XLSX. */
+export const exportVariance = query({
+  name: "variance.export",
+  input: varianceExportSchema,
+  permission: ["use", "Export"],
+  run: async ({ user, input, now }): Promise<ExportFile> => {
+    if (!user.ability.can("read", "Variance")) throw forbidden();
+    const { format, ...filter } = input;
+    const database = db();
+    const [fleet, names] = await Promise.all([loadFleetVariance(database, user, filter, now), varianceNames(database, user)]);
+    const byVehicle = new Map(fleet.vehicles.map((v) => [v.vehicleId, v]));
+    const rows = fleet.details.map((d) => {
+      const result = byVehicle.get(d.vehicleId);
+      return {
+        fleetNumber: d.fleetNumber,
+        depotName: d.depotId ? (names.depot.get(d.depotId) ?? null) : null,
+        platformName: names.platform.get(d.platformId) ?? null,
+        editionName: d.editionId ? (names.edition.get(d.editionId) ?? null) : null,
+        status: result?.status ?? "no_edition",
+        summary: d.variance?.summary ?? null,
+        costToCloseCents: result?.costToCloseCents ?? 0,
+        massToCloseKg: result?.massToCloseKg ?? 0,
+      };
+    });
+    const file = await writeExport(varianceTable(rows), format, now);
+    return { ...file, filename: `rigline-variance-${isoDay(now)}.${format}`, rows: rows.length };
+  },
+});
+
 // ─── Budgets ────────────────────────────────────────────────────────────────────
 
 export const budgetListSchema = z
@@ -480,14 +523,25 @@ export const fleetTrendsSchema = z
   .object({ from: optionalDay("from").meta({ description: "First day (YYYY-MM-DD); default: a year ago" }) })
   .meta({ id: "FleetTrendsQuery" });
 
-/** Daily readiness and variance figures (from fleet_snapshots) for the charts over time. */
+/**
+ * Daily readiness and variance figures (from fleet_snapshots) for the charts over time. They are
+ * whole-fleet figures, so only the roles that see the whole fleet's costs and variance read them.
+ */
 export const fleetTrends = query({
   name: "fleet.trends",
   input: fleetTrendsSchema,
-  permission: ["read", "Variance"],
+  permission: ["read", "Cost"],
   run: async ({ user, input, now }) => {
+    if (!user.ability.can("read", "Variance")) throw forbidden();
     const from = input.from ?? new Date(now.getTime() - 365 * DAY_MS);
-    return { items: await listFleetSnapshots(db(), user, isoDay(from)) };
+    const database = db();
+    let items = await listFleetSnapshots(database, user, isoDay(from));
+    // The day's figures are taken the first time anyone looks (a scheduler may take them earlier).
+    if (items[items.length - 1]?.day !== isoDay(now)) {
+      await recordFleetSnapshot(database, user.orgId, await fleetFiguresNow(database, user.orgId, now));
+      items = await listFleetSnapshots(database, user, isoDay(from));
+    }
+    return { items };
   },
 });
 

@@ -5,6 +5,7 @@ import { GET as listCostsRoute, POST as createCostRoute } from "@/app/api/costs/
 import { DELETE as revokeRoute } from "@/app/api/tokens/[id]/route";
 import { GET as listTokensRoute, POST as createTokenRoute } from "@/app/api/tokens/route";
 import { GET as listUsersRoute } from "@/app/api/users/route";
+import { GET as varianceExportRoute } from "@/app/api/variance/export/route";
 import { apiTokens, auditEntries, memberships } from "@/db/schema";
 import { createApiToken, listApiTokens, revokeApiToken } from "@/lib/commands/tokens";
 import { sha256Hex } from "@/lib/security/tokens";
@@ -105,6 +106,9 @@ describe("using a token", () => {
     expect((await response.text()).split("\r\n")[0]).toContain("Cost centre");
     const row = await database.query.apiTokens.findFirst({ where: eq(apiTokens.id, id) });
     expect(row?.lastUsedAt).toBeInstanceOf(Date);
+    const variance = await withToken(varianceExportRoute, token, { url: "http://localhost/api/variance/export?format=xlsx" });
+    expect(variance.status).toBe(200);
+    expect(variance.response.headers.get("content-type")).toBe("application/vnd.openxmlformats-officedocument.spreadsheetml.sheet");
   });
 
   it("does what its user may do: a finance token books a cost", async () => {
@@ -124,6 +128,7 @@ describe("using a token", () => {
     for (const [handler, url] of [
       [listCostsRoute, "http://localhost/api/costs"],
       [exportRoute, EXPORT_URL],
+      [varianceExportRoute, "http://localhost/api/variance/export?format=csv"],
       [listUsersRoute, "http://localhost/api/users"],
     ] as const) {
       const { status, json } = await withToken(handler, driverToken, { url });
