@@ -103,7 +103,7 @@ export function QuoteEditor({
             return (
               <Tr key={i} data-testid="quote-line">
                 <Td>
-                  <Select size="md" aria-label={`Line ${i + 1} kind`} value={row.kind} onChange={(e) => update(i, { kind: e.target.value as Kind })}>
+                  <Select size="md" className="min-w-32" aria-label={`Line ${i + 1} kind`} value={row.kind} onChange={(e) => update(i, { kind: e.target.value as Kind })}>
                     <option value="part">Part</option>
                     <option value="labour">Labour</option>
                     <option value="other">Other</option>

@@ -102,7 +102,7 @@ type Plan = {
 const PLANS: Plan[] = [
   { title: "Recovery gear to standard", state: "open", gaps: 2, offers: [], quotes: [], dueInDays: 30 },
   { title: "Protection and recovery upgrade", state: "quoting", gaps: 2, offers: ["a", "b"], quotes: [{ firm: "a", status: "submitted", factor: 0.96 }, { firm: "b", status: "submitted", factor: 1.07 }], dueInDays: 12 },
-  { title: "Communications fit-out", state: "quoting", gaps: 2, offers: ["a", "b"], quotes: [{ firm: "a", status: "returned", factor: 1.18, reason: "Quote the radio installed and tested, not as a loose part" }, { firm: "b", status: "draft", factor: 1.02 }], dueInDays: 9 },
+  { title: "Communications fit-out", state: "quoting", gaps: 2, offers: ["a", "b"], quotes: [{ firm: "a", status: "returned", factor: 1.18, reason: "Quote each item installed and tested, with the fitting hours per item, not as loose parts" }, { firm: "b", status: "draft", factor: 1.02 }], dueInDays: 9 },
   { title: "Long-range touring package", state: "quoting", gaps: 3, free: ["Long-range fuel tank, 140 L"], offers: ["a", "b"], quotes: [{ firm: "a", status: "awaiting_finance", factor: 1, extraCents: 420_000 }, { firm: "b", status: "submitted", factor: 1.12, extraCents: 455_000 }], dueInDays: 20 },
   { title: "Electrical upgrade", state: "awarded", gaps: 2, offers: ["a", "b"], quotes: [{ firm: "b", status: "accepted", factor: 0.98 }, { firm: "a", status: "declined", factor: 1.05, reason: "The work was awarded to another workshop" }], dueInDays: 18 },
   { title: "Water and dust sealing", state: "in_workshop", gaps: 2, offers: ["a"], quotes: [{ firm: "a", status: "accepted", factor: 1 }], evidence: ["lodged", "rejected"], dueInDays: 5 },
@@ -247,6 +247,7 @@ export async function seedJobs(tx: Database, orgId: string, now: Date = new Date
         await tx.insert(quoteRevisions).values({
           quoteId: quote!.id,
           revision: 1,
+          createdAt: quote!.submittedAt ?? createdAt,
           snapshot: { submittedBy: author, submittedAt: quote!.submittedAt?.toISOString(), totalCents: quote!.totalCents, gstCents: quote!.gstCents, subtotalCents: quote!.subtotalCents, lines: rows.map(({ quoteId: _q, ...r }) => r) },
         });
       }

@@ -71,6 +71,12 @@ export async function moveJob(ctx: Pick<CommandContext<unknown>, "tx" | "audit">
 
 // ─── Reads ─────────────────────────────────────────────────────────────────────
 
+/** A contractor learns that a job went to another workshop, never which one. */
+function hideOtherFirm<T extends { awardedFirmId: string | null; awardedFirmName: string | null }>(user: SignedIn, row: T): T {
+  if (user.role !== "contractor" || row.awardedFirmId === null || row.awardedFirmId === user.firmId) return row;
+  return { ...row, awardedFirmId: "another", awardedFirmName: "Another workshop" };
+}
+
 export const listJobs = query({
   name: "job.list",
   input: z.object({
@@ -83,7 +89,7 @@ export const listJobs = query({
   permission: ["read", "Job"],
   run: async ({ user, input, now }) => {
     const rows = await listJobRows(db(), user, input, now);
-    return rows.map((r) => ({ ...r, overdue: isJobOverdue(r.state, r.dueAt, now) }));
+    return rows.map((r) => ({ ...hideOtherFirm(user, r), overdue: isJobOverdue(r.state, r.dueAt, now) }));
   },
 });
 
@@ -118,7 +124,7 @@ export const getJob = query({
       expired: q.validUntil !== null && q.validUntil.getTime() < now.getTime(),
     }));
     return {
-      job: { ...job, overdue: isJobOverdue(job.state, job.dueAt, now), awardedFirmName: row.awardedFirmName, next: jobMachine.next(job.state) },
+      job: { ...hideOtherFirm(user, { ...job, awardedFirmName: row.awardedFirmName }), overdue: isJobOverdue(job.state, job.dueAt, now), next: jobMachine.next(job.state) },
       vehicle: {
         id: vehicle.id,
         fleetNumber: vehicle.fleetNumber,

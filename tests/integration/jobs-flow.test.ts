@@ -171,6 +171,10 @@ describe("offering and moving a job", () => {
     await database.update(jobs).set({ state: "awarded", awardedFirmId: firmA.id }).where(eq(jobs.id, id));
     const wrongFirm = await callRoute(progressRoute, { user: contractorB, params: { id }, body: { to: "in_workshop" } });
     expect(wrongFirm.status).toBe(403);
+    // Firm B learns the work went elsewhere, not to whom.
+    const seenByB = await callRoute(getJobRoute, { user: contractorB, params: { id } });
+    expect((seenByB.json as { job: { awardedFirmName: string; awardedFirmId: string } }).job).toMatchObject({ awardedFirmName: "Another workshop", awardedFirmId: "another" });
+    expect(JSON.stringify(seenByB.json)).not.toContain(firmA.id);
     const moved = await callRoute(progressRoute, { user: contractorA, params: { id }, body: { to: "in_workshop" } });
     expect(moved.status).toBe(200);
     // evidence lodged needs evidence first

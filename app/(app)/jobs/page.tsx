@@ -35,7 +35,8 @@ export default async function JobsPage({ searchParams }: { searchParams: Promise
         db().select({ id: contractorFirms.id, name: contractorFirms.name }).from(contractorFirms).where(eq(contractorFirms.orgId, user.orgId)).orderBy(asc(contractorFirms.name)),
         db().select({ id: depots.id, name: depots.name }).from(depots).where(and(eq(depots.orgId, user.orgId))).orderBy(asc(depots.name)),
       ]);
-  const waiting = jobs.filter((j) => j.state === "quoting" || j.state === "awarded" || j.state === "in_workshop");
+  // For a workshop: jobs still open for its quote, and work awarded to it that is not finished.
+  const waiting = jobs.filter((j) => j.state === "quoting" || (["awarded", "in_workshop"].includes(j.state) && j.awardedFirmId === user.firmId));
   return (
     <div className="flex flex-col gap-6">
       <PageHeader
