@@ -1,5 +1,10 @@
-import { expect, test, type Page } from "@playwright/test";
+import AxeBuilder from "@axe-core/playwright";
+import { expect as baseExpect, test, type Page } from "@playwright/test";
 import { e2eDatabase, idOf, storageFor } from "./support";
+
+// The register waits on the server for each change of the URL; give a busy machine room.
+const expect = baseExpect.configure({ timeout: 20_000 });
+test.describe.configure({ timeout: 120_000 });
 
 async function rows(page: Page) {
   return page.getByRole("region", { name: "Vehicles" }).locator("tbody tr");
@@ -8,10 +13,19 @@ async function rows(page: Page) {
 /** Values of one column of the register, by its header text. */
 async function columnValues(page: Page, header: string): Promise<string[]> {
   const table = page.getByRole("region", { name: "Vehicles" });
+  await expect(table.locator("tbody tr").first()).toBeVisible();
   const headers = await table.locator("thead th").allInnerTexts();
   const index = headers.findIndex((h) => h.trim().toLowerCase() === header.toLowerCase());
   expect(index, `column ${header}`).toBeGreaterThanOrEqual(0);
   return table.locator(`tbody tr td:nth-child(${index + 1})`).allInnerTexts();
+}
+
+// axe-core scan (WCAG 2.1 A/AA rules): no serious or critical violations.
+async function seriousViolations(page: Page) {
+  const results = await new AxeBuilder({ page }).withTags(["wcag2a", "wcag2aa", "wcag21a", "wcag21aa"]).analyze();
+  return results.violations
+    .filter((v) => v.impact === "serious" || v.impact === "critical")
+    .map((v) => `${v.id}: ${v.help} (${v.nodes.map((n) => n.target.join(" ")).join(", ")})`);
 }
 
 async function query<T = Record<string, unknown>>(sql: string, args: (string | number)[] = []): Promise<T[]> {
@@ -27,7 +41,6 @@ test.describe("the register, as a fleet manager", () => {
   test.use({ storageState: storageFor("manager") });
 
   test("searches, filters by depot, sorts, changes columns, and keeps it all after a reload", async ({ page }) => {
-    test.setTimeout(60_000);
     await page.goto("/vehicles");
     await expect(page.getByRole("heading", { name: "Vehicles", level: 1 })).toBeVisible();
     await expect(page.getByTestId("register-count")).toContainText("of 40 vehicles");
@@ -185,6 +198,24 @@ test.describe("the register, as a fleet manager", () => {
     await expect(page.getByRole("region", { name: /Notices/ }).getByText("Bilby Scout saved; its ratings are complete")).toBeVisible();
     await expect(page.getByTestId("missing-ratings")).toHaveCount(0);
     await expect(page.getByText("Ratings complete")).toBeVisible();
+  });
+});
+
+test.describe("the register pages, scanned for accessibility", () => {
+  test.use({ storageState: storageFor("manager") });
+
+  test("register, vehicle, forms and platforms have no serious violations", async ({ page }) => {
+    const vehicle = await idOf("vehicles", "fleet_number = ?", ["MH-008"]);
+    const [{ id: platform }] = await query<{ id: string }>(
+      "select p.id from platforms p join organisations o on o.id = p.org_id where o.slug = ? order by p.make limit 1",
+      ["mirrabel-health"],
+    ) as [{ id: string }];
+    for (const path of ["/vehicles", `/vehicles/${vehicle}`, `/vehicles/${vehicle}/edit`, "/vehicles/new", "/platforms", `/platforms/${platform}`, `/platforms/${platform}/edit`]) {
+      await page.goto(path);
+      await expect(page.getByRole("heading", { level: 1 })).toBeVisible();
+      if (path === "/vehicles") await expect(page.getByRole("region", { name: "Vehicles" })).toBeVisible();
+      expect(await seriousViolations(page), path).toEqual([]);
+    }
   });
 });
 
