@@ -108,7 +108,7 @@ export const vehicleMassQuery = query({
 
 // ─── What-if plan ────────────────────────────────────────────────────────────
 
-const optionalNumber = (name: string, min: number, max: number, unit: string) =>
+const optionalNumber = (label: string, min: number, max: number, unit: string) =>
   z
     .union([z.number(), z.string(), z.null()])
     .optional()
@@ -118,11 +118,11 @@ const optionalNumber = (name: string, min: number, max: number, unit: string) =>
       if (typeof v === "string" && v.trim() === "") return null;
       const n = typeof v === "number" ? v : Number(v.trim());
       if (!Number.isFinite(n)) {
-        ctx.addIssue({ code: "custom", message: `${name} must be a number of ${unit}` });
+        ctx.addIssue({ code: "custom", message: `Enter ${label} as a number of ${unit}` });
         return z.NEVER;
       }
       if (n < min || n > max) {
-        ctx.addIssue({ code: "custom", message: `${name} must be between ${min} and ${max} ${unit}` });
+        ctx.addIssue({ code: "custom", message: `${label.charAt(0).toUpperCase()}${label.slice(1)} must be between ${min.toLocaleString("en-AU")} and ${max.toLocaleString("en-AU")} ${unit}` });
         return z.NEVER;
       }
       return n;
@@ -140,10 +140,10 @@ const itemFields = {
     .min(1, { error: "Give the item a name" })
     .max(120, { error: "The name is too long (at most 120 characters)" }),
   massKg: z.coerce
-    .number({ error: "massKg must be a number of kg" })
-    .positive({ error: "massKg must be greater than zero" })
-    .max(3000, { error: "massKg looks wrong: more than 3000 kg" }),
-  xMm: optionalNumber("xMm", -3000, 12_000, "mm behind the front axle"),
+    .number({ error: "Enter the mass in kg" })
+    .positive({ error: "Enter a mass above zero kg" })
+    .max(3000, { error: "That mass looks wrong: more than 3,000 kg" }),
+  xMm: optionalNumber("the distance behind the front axle", -3000, 12_000, "mm"),
   zone: zoneField,
   massKind: z.enum(["constant", "variable"], { error: 'massKind must be "constant" or "variable"' }).default("constant"),
 };
@@ -303,11 +303,11 @@ export const listPlanQuery = query({
 
 // ─── Weighbridge ─────────────────────────────────────────────────────────────
 
-const ticketKg = (name: string) =>
+const ticketKg = (what: string) =>
   z.coerce
-    .number({ error: `${name} must be a number of kg` })
-    .positive({ error: `${name} must be greater than zero` })
-    .max(20_000, { error: `${name} looks wrong: more than 20,000 kg` });
+    .number({ error: `Enter the ${what} mass from the ticket in kg` })
+    .positive({ error: `Enter the ${what} mass from the ticket in kg` })
+    .max(20_000, { error: `The ${what} mass looks wrong: more than 20,000 kg` });
 
 export const ticketInputSchema = z.object({
   id: vehicleId,
@@ -330,9 +330,9 @@ export const ticketInputSchema = z.object({
     .trim()
     .min(1, { error: "Give the ticket number" })
     .max(40, { error: "The ticket number is too long (at most 40 characters)" }),
-  frontKg: ticketKg("frontKg"),
-  rearKg: ticketKg("rearKg"),
-  grossKg: ticketKg("grossKg"),
+  frontKg: ticketKg("front axle"),
+  rearKg: ticketKg("rear axle"),
+  grossKg: ticketKg("gross"),
   jobId: z.string().trim().max(64).optional().transform((v) => (v ? v : null)),
 });
 
@@ -477,7 +477,7 @@ export const massTabQuery = query({
       editions: canPlan ? await plannableEditions(db(), user.orgId) : [],
       tickets: tickets.map((t) => ({ id: t.id, ticketNumber: t.ticketNumber, weighedAt: t.weighedAt.toISOString(), frontKg: t.frontKg, rearKg: t.rearKg, grossKg: t.grossKg })),
       reconciliation: latest ? reconcileTicket(context, latest) : null,
-      can: { plan: canPlan, readTickets: canReadTickets, recordTicket: canRecordTicket },
+      can: { plan: canPlan, readTickets: canReadTickets, recordTicket: canRecordTicket, readRuleSets: user.ability.can("read", "OrgSettings") },
     };
   },
 });

@@ -283,3 +283,29 @@ describe("fitted items", () => {
     expect(r.grossKg).toBeCloseTo(2265 + 80, 6);
   });
 });
+
+describe("the brake warning", () => {
+  it("warns when the loaded mass is above standard by more than the organisation's margin, unless brakes are upgraded", async () => {
+    const id = ids.yendor!; // kerb 2150 kg
+    // Common practice: heavier vehicles on taller tyres need better brakes; the default 500 kg margin
+    // echoes a loaded touring fit-out being commonly 500–600 kg above standard.
+    // Hand-worked: 2 occupants (160) + 400 kg cargo = 560 kg above the kerb mass, over the 500 kg margin.
+    const loaded = figures((await mass(manager, id, "?occupants=2&cargoKg=400")).json);
+    expect(loaded.aboveStandardKg).toBeCloseTo(560, 6);
+    expect(loaded.warnings.map((w) => w.code)).toContain("brakes");
+    // 160 + 300 = 460 kg: within the margin.
+    expect(figures((await mass(manager, id, "?occupants=2&cargoKg=300")).json).warnings.map((w) => w.code)).not.toContain("brakes");
+
+    // The organisation's margin decides.
+    await database.update(organisations).set({ brakeWarningMarginKg: 600 }).where(eq(organisations.id, manager.orgId));
+    expect(figures((await mass(manager, id, "?occupants=2&cargoKg=400")).json).warnings.map((w) => w.code)).not.toContain("brakes");
+    await database.update(organisations).set({ brakeWarningMarginKg: 500 }).where(eq(organisations.id, manager.orgId));
+
+    // A fitted brake upgrade silences it; an assessment alone does not.
+    await database.insert(fitments).values({ orgId: manager.orgId, vehicleId: id, label: "Brake upgrade assessment", quantity: 1, fittedAt: new Date("2026-02-01T00:00:00Z") });
+    expect(figures((await mass(manager, id, "?occupants=2&cargoKg=400")).json).warnings.map((w) => w.code)).toContain("brakes");
+    await database.insert(fitments).values({ orgId: manager.orgId, vehicleId: id, label: "Brake upgrade kit, front and rear", quantity: 1, fittedAt: new Date("2026-02-02T00:00:00Z") });
+    expect(figures((await mass(manager, id, "?occupants=2&cargoKg=400")).json).warnings.map((w) => w.code)).not.toContain("brakes");
+  });
+});
+
