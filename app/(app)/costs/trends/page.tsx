@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { ReadinessOverTimeChart, VarianceClosingChart, type TrendPoint } from "@/components/charts";
+import { ExportLinks } from "@/components/costs/export-links";
 import { Card, CardBody, PageHeader } from "@/components/ui";
 import { fleetTrends } from "@/lib/commands/costs";
 import { requirePermission } from "@/lib/server/guard";
@@ -24,7 +25,11 @@ export default async function FleetTrendsPage() {
   const points = weekly(items);
   return (
     <div className="flex flex-col gap-6">
-      <PageHeader title="Fleet over time" question="Is the fleet getting readier, and are the gaps to the standard closing?" />
+      <PageHeader
+        title="Fleet over time"
+        question="Is the fleet getting readier, and are the gaps to the standard closing?"
+        actions={<ExportLinks values={{}} base="/api/variance/export" what="fleet variance, vehicle by vehicle" testIdPrefix="variance-export" />}
+      />
       <nav aria-label="Cost views" className="flex gap-4 text-sm font-semibold">
         <Link href="/costs" className="pb-1 text-accent hover:underline">
           Ledger
@@ -48,7 +53,9 @@ export default async function FleetTrendsPage() {
           </CardBody>
         </Card>
       </div>
-      <p className="text-sm text-muted">Figures are recorded once a day for the whole fleet; retired vehicles are not counted.</p>
+      <p className="text-sm text-muted">
+        Figures are recorded once a day for the whole fleet; retired vehicles are not counted. The downloads list today&apos;s variance of each vehicle against its edition.
+      </p>
     </div>
   );
 }
