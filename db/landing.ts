@@ -1,7 +1,7 @@
-import { and, count, eq, gte, inArray, isNull, sum } from "drizzle-orm";
+import { and, count, eq, gte, inArray, isNotNull, isNull, sum } from "drizzle-orm";
 import type { Actor } from "@/lib/permissions";
 import type { DbOrTx } from "./client";
-import { costs, defects, jobOffers, jobs, memberships, outboxMessages, quotes, users } from "./schema";
+import { costs, defects, evidence, jobOffers, jobs, memberships, outboxMessages, quotes, users } from "./schema";
 
 /** The figures each role's home page opens with. All scoped to the actor's organisation. */
 export async function quoteCounts(db: DbOrTx, actor: Actor) {
@@ -63,4 +63,17 @@ export async function myOpenDefects(db: DbOrTx, actor: Actor) {
     .from(defects)
     .where(and(eq(defects.orgId, actor.orgId), eq(defects.reportedBy, actor.userId), inArray(defects.state, ["reported", "triaged", "in_repair"])));
   return row?.n ?? 0;
+}
+
+/** What waits on a manager: workshop evidence to review and driver reports to triage. */
+export async function managerQueues(db: DbOrTx, actor: Actor) {
+  const [lodged] = await db
+    .select({ n: count() })
+    .from(evidence)
+    .where(and(eq(evidence.orgId, actor.orgId), eq(evidence.status, "lodged"), isNotNull(evidence.jobId)));
+  const [reported] = await db
+    .select({ n: count() })
+    .from(defects)
+    .where(and(eq(defects.orgId, actor.orgId), eq(defects.state, "reported")));
+  return { evidenceToReview: lodged?.n ?? 0, defectsToTriage: reported?.n ?? 0 };
 }
