@@ -74,16 +74,34 @@ export type RegisterItem = {
   updatedAt: string;
   platform: { id: string; make: string; model: string; variant: string; ratingsMissing: boolean };
   depot: { id: string; name: string; code: string } | null;
-  edition: { id: string; number: number; status: string; standardId: string; standardName: string } | null;
+  edition: {
+    id: string;
+    number: number;
+    status: string;
+    standardId: string;
+    standardName: string;
+  } | null;
   variance: VarianceStatusValue;
   drivers: { id: string; name: string }[];
 };
-type RegisterPage = { items: RegisterItem[]; page: number; pageSize: number; total: number; pageCount: number };
+type RegisterPage = {
+  items: RegisterItem[];
+  page: number;
+  pageSize: number;
+  total: number;
+  pageCount: number;
+};
 
 export type RegisterOptions = {
   depots: { id: string; name: string; code: string }[];
   platforms: { id: string; name: string }[];
-  editions: { id: string; number: number; status: string; standardId: string; standardName: string }[];
+  editions: {
+    id: string;
+    number: number;
+    status: string;
+    standardId: string;
+    standardName: string;
+  }[];
   standards: { id: string; name: string }[];
 };
 
@@ -106,12 +124,25 @@ const COLUMN_LABELS: Record<RegisterColumn, string> = {
 const NUMERIC: ReadonlySet<string> = new Set(["odometerKm", "buildYear"]);
 const SORTABLE: ReadonlySet<string> = new Set(REGISTER_SORTS);
 
-const dayFormat = new Intl.DateTimeFormat("en-AU", { day: "numeric", month: "short", year: "numeric", timeZone: "UTC" });
-const stampFormat = new Intl.DateTimeFormat("en-AU", { day: "numeric", month: "short", hour: "2-digit", minute: "2-digit" });
+const dayFormat = new Intl.DateTimeFormat("en-AU", {
+  day: "numeric",
+  month: "short",
+  year: "numeric",
+  timeZone: "UTC",
+});
+const stampFormat = new Intl.DateTimeFormat("en-AU", {
+  day: "numeric",
+  month: "short",
+  hour: "2-digit",
+  minute: "2-digit",
+});
 
 async function fetchPage(query: string): Promise<RegisterPage> {
-  const response = await fetch(`/api/vehicles?${query}`, { headers: { accept: "application/json" } });
-  const json = (await response.json().catch(() => null)) as (RegisterPage & { error?: { message?: string } }) | null;
+  const response = await fetch(`/api/vehicles?${query}`, {
+    headers: { accept: "application/json" },
+  });
+  const json = (await response.json().catch(() => null)) as
+    (RegisterPage & { error?: { message?: string } }) | null;
   if (!response.ok) throw new Error(json?.error?.message ?? "The register could not be loaded.");
   return json as RegisterPage;
 }
@@ -128,7 +159,9 @@ function columnsFor(canManage: boolean, control: "md" | "lg"): ColumnDef<Registe
         aria-label="Choose every vehicle on this page"
         checked={table.getIsAllPageRowsSelected()}
         ref={(el) => {
-          if (el) el.indeterminate = table.getIsSomePageRowsSelected() && !table.getIsAllPageRowsSelected();
+          if (el)
+            el.indeterminate =
+              table.getIsSomePageRowsSelected() && !table.getIsAllPageRowsSelected();
         }}
         onChange={table.getToggleAllPageRowsSelectedHandler()}
       />
@@ -150,14 +183,25 @@ function columnsFor(canManage: boolean, control: "md" | "lg"): ColumnDef<Registe
       cell: ({ row }) => (
         <Link
           href={`/vehicles/${row.original.id}`}
-          className={cn("font-semibold text-accent underline-offset-4 hover:underline", control === "lg" && "inline-flex min-h-11 items-center text-base")}
+          className={cn(
+            "font-semibold text-accent underline-offset-4 hover:underline",
+            control === "lg" && "inline-flex min-h-11 items-center text-base",
+          )}
         >
           {row.original.fleetNumber}
         </Link>
       ),
     },
     { id: "registration", cell: ({ row }) => row.original.registration ?? <Muted /> },
-    { id: "vin", cell: ({ row }) => (row.original.vin ? <span className="font-mono text-xs">{row.original.vin}</span> : <Muted />) },
+    {
+      id: "vin",
+      cell: ({ row }) =>
+        row.original.vin ? (
+          <span className="font-mono text-xs">{row.original.vin}</span>
+        ) : (
+          <Muted />
+        ),
+    },
     {
       id: "platform",
       cell: ({ row }) => {
@@ -165,14 +209,20 @@ function columnsFor(canManage: boolean, control: "md" | "lg"): ColumnDef<Registe
         return (
           <span>
             {p.make} {p.model} <span className="text-muted">{p.variant}</span>
-            {p.ratingsMissing && <span className="block text-xs font-semibold text-warn-ink">ratings missing</span>}
+            {p.ratingsMissing && (
+              <span className="block text-xs font-semibold text-warn-ink">ratings missing</span>
+            )}
           </span>
         );
       },
     },
     { id: "depot", cell: ({ row }) => row.original.depot?.name ?? <Muted /> },
     { id: "state", cell: ({ row }) => <VehicleStatePill state={row.original.state} size="sm" /> },
-    { id: "variance", enableSorting: false, cell: ({ row }) => <VariancePill status={row.original.variance} /> },
+    {
+      id: "variance",
+      enableSorting: false,
+      cell: ({ row }) => <VariancePill status={row.original.variance} />,
+    },
     {
       id: "standard",
       enableSorting: false,
@@ -183,13 +233,27 @@ function columnsFor(canManage: boolean, control: "md" | "lg"): ColumnDef<Registe
     },
     {
       id: "odometerKm",
-      cell: ({ row }) => (row.original.odometerKm === null ? <Muted /> : <Quantity value={row.original.odometerKm} unit="km" />),
+      cell: ({ row }) =>
+        row.original.odometerKm === null ? (
+          <Muted />
+        ) : (
+          <Quantity value={row.original.odometerKm} unit="km" />
+        ),
     },
-    { id: "costCentre", enableSorting: false, cell: ({ row }) => row.original.costCentre ?? <Muted /> },
+    {
+      id: "costCentre",
+      enableSorting: false,
+      cell: ({ row }) => row.original.costCentre ?? <Muted />,
+    },
     {
       id: "drivers",
       enableSorting: false,
-      cell: ({ row }) => (row.original.drivers.length ? row.original.drivers.map((d) => d.name).join(", ") : <Muted />),
+      cell: ({ row }) =>
+        row.original.drivers.length ? (
+          row.original.drivers.map((d) => d.name).join(", ")
+        ) : (
+          <Muted />
+        ),
     },
     {
       id: "registrationExpiry",
@@ -207,7 +271,11 @@ function columnsFor(canManage: boolean, control: "md" | "lg"): ColumnDef<Registe
         );
       },
     },
-    { id: "buildYear", enableSorting: false, cell: ({ row }) => row.original.buildYear ?? <Muted /> },
+    {
+      id: "buildYear",
+      enableSorting: false,
+      cell: ({ row }) => row.original.buildYear ?? <Muted />,
+    },
     { id: "updatedAt", cell: ({ row }) => stampFormat.format(new Date(row.original.updatedAt)) },
   ];
   // Sorting runs on the server; TanStack only needs to know a column has a value to sort by.
@@ -237,14 +305,25 @@ function Muted() {
  * The vehicle register: a server-paged table whose page, sort, filters, search and columns live
  * in the URL, so a reload or a shared link shows the same view.
  */
-export function VehicleRegister({ options, canManage, mine }: { options: RegisterOptions; canManage: boolean; mine: boolean }) {
+export function VehicleRegister({
+  options,
+  canManage,
+  mine,
+}: {
+  options: RegisterOptions;
+  canManage: boolean;
+  mine: boolean;
+}) {
   const router = useRouter();
   const pathname = usePathname();
   const searchParams = useSearchParams();
   // The URL is the state; while a replace is on its way the table already shows the change.
   const [urlSearch, setOptimisticSearch] = useOptimistic(searchParams.toString());
   const defaults = mine ? FIELD_COLUMNS : DEFAULT_COLUMNS;
-  const params = useMemo(() => readRegisterParams(new URLSearchParams(urlSearch), defaults), [urlSearch, defaults]);
+  const params = useMemo(
+    () => readRegisterParams(new URLSearchParams(urlSearch), defaults),
+    [urlSearch, defaults],
+  );
   const query = apiQuery(params);
   const control = mine ? "lg" : "md";
 
@@ -285,7 +364,9 @@ export function VehicleRegister({ options, canManage, mine }: { options: Registe
 
   const columns = useMemo(() => columnsFor(canManage, control), [canManage, control]);
   const sorting: SortingState = [{ id: params.sort, desc: params.dir === "desc" }];
-  const columnVisibility: VisibilityState = Object.fromEntries(REGISTER_COLUMNS.map((c) => [c, params.columns.includes(c)]));
+  const columnVisibility: VisibilityState = Object.fromEntries(
+    REGISTER_COLUMNS.map((c) => [c, params.columns.includes(c)]),
+  );
 
   // TanStack Table keeps no state of its own here: the URL holds sorting, paging and columns.
   // eslint-disable-next-line react-hooks/incompatible-library
@@ -323,10 +404,13 @@ export function VehicleRegister({ options, canManage, mine }: { options: Registe
 
   const selectedIds = Object.keys(rowSelection).filter((k) => rowSelection[k]);
   const filtered = hasFilters(params);
-  const setFilter = (name: RegisterFilter) => (e: { target: { value: string } }) => refilter({ [name]: e.target.value || null });
+  const setFilter = (name: RegisterFilter) => (e: { target: { value: string } }) =>
+    refilter({ [name]: e.target.value || null });
   const clearAll = () => {
     setSearch("");
-    refilter(Object.fromEntries([["q", null], ...Object.keys(params.filters).map((f) => [f, null])]));
+    refilter(
+      Object.fromEntries([["q", null], ...Object.keys(params.filters).map((f) => [f, null])]),
+    );
   };
 
   const bulkOptions: BulkOptions = {
@@ -343,9 +427,25 @@ export function VehicleRegister({ options, canManage, mine }: { options: Registe
 
   return (
     <div className="flex flex-col gap-4">
-      <search aria-label="Find vehicles" className={cn("grid grid-cols-1 gap-3", mine ? "sm:grid-cols-2" : "sm:grid-cols-2 lg:grid-cols-4")}>
-        <Field label="Search fleet no., VIN or registration" className={mine ? "" : "lg:col-span-2"}>
-          <Input type="search" size={control} value={search} onChange={(e) => setSearch(e.target.value)} autoComplete="off" spellCheck={false} />
+      <search
+        aria-label="Find vehicles"
+        className={cn(
+          "grid grid-cols-1 gap-3",
+          mine ? "sm:grid-cols-2" : "sm:grid-cols-2 lg:grid-cols-4",
+        )}
+      >
+        <Field
+          label="Search fleet no., VIN or registration"
+          className={mine ? "" : "lg:col-span-2"}
+        >
+          <Input
+            type="search"
+            size={control}
+            value={search}
+            onChange={(e) => setSearch(e.target.value)}
+            autoComplete="off"
+            spellCheck={false}
+          />
         </Field>
         <Field label="State">
           <Select size={control} value={params.filters.state ?? ""} onChange={setFilter("state")}>
@@ -415,7 +515,11 @@ export function VehicleRegister({ options, canManage, mine }: { options: Registe
 
       <div className="flex flex-wrap items-center justify-between gap-3">
         <p className="text-sm text-muted" aria-live="polite" data-testid="register-count">
-          {data ? (data.total === 0 ? "No vehicles" : `Showing ${first}–${last} of ${data.total} vehicle${data.total === 1 ? "" : "s"}`) : "Loading vehicles…"}
+          {data
+            ? data.total === 0
+              ? "No vehicles"
+              : `Showing ${first}–${last} of ${data.total} vehicle${data.total === 1 ? "" : "s"}`
+            : "Loading vehicles…"}
           {isFetching && data && (
             <span className="ml-2 inline-flex items-center gap-1">
               <Spinner size="sm" /> updating
@@ -432,7 +536,13 @@ export function VehicleRegister({ options, canManage, mine }: { options: Registe
         </div>
       </div>
 
-      {canManage && selectedIds.length > 0 && <BulkActions selectedIds={selectedIds} options={bulkOptions} onDone={() => setRowSelection({})} />}
+      {canManage && selectedIds.length > 0 && (
+        <BulkActions
+          selectedIds={selectedIds}
+          options={bulkOptions}
+          onDone={() => setRowSelection({})}
+        />
+      )}
 
       {error && !data ? (
         <FormMessage tone="error">
@@ -465,48 +575,95 @@ export function VehicleRegister({ options, canManage, mine }: { options: Registe
               : "Add vehicles one by one or import the register from a spreadsheet."}
         </EmptyState>
       ) : (
-        <Table label="Vehicles" density={mine ? "comfortable" : "compact"} aria-busy={isFetching || undefined}>
-          <THead>
-            {table.getHeaderGroups().map((group) => (
-              <Tr key={group.id}>
-                {group.headers.map((header) => {
-                  const column = header.column;
-                  const sorted = column.getIsSorted();
-                  return (
-                    <Th
-                      key={header.id}
-                      numeric={NUMERIC.has(column.id)}
-                      className={column.id === "select" ? "w-10" : undefined}
-                      sort={column.getCanSort() ? (sorted === "asc" ? "ascending" : sorted === "desc" ? "descending" : "none") : undefined}
-                      onSort={column.getCanSort() ? column.getToggleSortingHandler() : undefined}
-                    >
-                      {flexRender(column.columnDef.header, header.getContext())}
-                    </Th>
-                  );
-                })}
-              </Tr>
-            ))}
-          </THead>
-          <TBody>
-            {table.getRowModel().rows.map((row) => (
-              <Tr key={row.id} selected={row.getIsSelected()}>
-                {row.getVisibleCells().map((cell) => (
-                  <Td key={cell.id} numeric={NUMERIC.has(cell.column.id)}>
-                    {flexRender(cell.column.columnDef.cell, cell.getContext())}
-                  </Td>
-                ))}
-              </Tr>
-            ))}
-          </TBody>
-        </Table>
+        <>
+          {mine && data && (
+            // On a phone, a driver's few vehicles read better as cards with big targets.
+            <ul className="flex flex-col gap-3 sm:hidden" aria-label="My vehicles">
+              {data.items.map((v) => (
+                <li key={v.id}>
+                  <Link
+                    href={`/vehicles/${v.id}`}
+                    className="flex min-h-16 flex-col gap-1 rounded-lg border border-line bg-surface-raised px-4 py-3 hover:border-accent"
+                  >
+                    <span className="flex items-center justify-between gap-3">
+                      <span className="text-lg font-bold text-accent">{v.fleetNumber}</span>
+                      <VehicleStatePill state={v.state} />
+                    </span>
+                    <span className="text-base">
+                      {v.registration ?? "No registration"} · {v.platform.make} {v.platform.model}
+                    </span>
+                    {v.depot && <span className="text-sm text-muted">{v.depot.name}</span>}
+                  </Link>
+                </li>
+              ))}
+            </ul>
+          )}
+          <Table
+            label="Vehicles"
+            density={mine ? "comfortable" : "compact"}
+            aria-busy={isFetching || undefined}
+            wrapperClassName={mine ? "hidden sm:block" : undefined}
+          >
+            <THead>
+              {table.getHeaderGroups().map((group) => (
+                <Tr key={group.id}>
+                  {group.headers.map((header) => {
+                    const column = header.column;
+                    const sorted = column.getIsSorted();
+                    return (
+                      <Th
+                        key={header.id}
+                        numeric={NUMERIC.has(column.id)}
+                        className={column.id === "select" ? "w-10" : undefined}
+                        sort={
+                          column.getCanSort()
+                            ? sorted === "asc"
+                              ? "ascending"
+                              : sorted === "desc"
+                                ? "descending"
+                                : "none"
+                            : undefined
+                        }
+                        onSort={column.getCanSort() ? column.getToggleSortingHandler() : undefined}
+                      >
+                        {flexRender(column.columnDef.header, header.getContext())}
+                      </Th>
+                    );
+                  })}
+                </Tr>
+              ))}
+            </THead>
+            <TBody>
+              {table.getRowModel().rows.map((row) => (
+                <Tr key={row.id} selected={row.getIsSelected()}>
+                  {row.getVisibleCells().map((cell) => (
+                    <Td key={cell.id} numeric={NUMERIC.has(cell.column.id)}>
+                      {flexRender(cell.column.columnDef.cell, cell.getContext())}
+                    </Td>
+                  ))}
+                </Tr>
+              ))}
+            </TBody>
+          </Table>
+        </>
       )}
 
       {data && data.total > 0 && (
         <div className="flex flex-wrap items-center justify-between gap-3">
-          <Pager page={page} pageCount={pageCount} onPage={(p) => replace({ page: String(p) })} size={control} />
+          <Pager
+            page={page}
+            pageCount={pageCount}
+            onPage={(p) => replace({ page: String(p) })}
+            size={control}
+          />
           <label className="flex items-center gap-2 text-sm">
             Rows per page
-            <Select size="sm" wrapperClassName="w-20" value={String(params.pageSize)} onChange={(e) => replace({ pageSize: e.target.value, page: null })}>
+            <Select
+              size="sm"
+              wrapperClassName="w-20"
+              value={String(params.pageSize)}
+              onChange={(e) => replace({ pageSize: e.target.value, page: null })}
+            >
               {PAGE_SIZES.map((n) => (
                 <option key={n} value={n}>
                   {n}
@@ -520,14 +677,29 @@ export function VehicleRegister({ options, canManage, mine }: { options: Registe
   );
 }
 
-function Pager({ page, pageCount, onPage, size }: { page: number; pageCount: number; onPage: (page: number) => void; size: "md" | "lg" }) {
+function Pager({
+  page,
+  pageCount,
+  onPage,
+  size,
+}: {
+  page: number;
+  pageCount: number;
+  onPage: (page: number) => void;
+  size: "md" | "lg";
+}) {
   if (pageCount <= 1) return <span />;
   const button = size === "lg" ? "lg" : "sm";
   return (
     <nav aria-label="Pages of the register">
       <ul className="flex flex-wrap items-center gap-1">
         <li>
-          <Button variant="ghost" size={button} disabled={page <= 1} onClick={() => onPage(page - 1)}>
+          <Button
+            variant="ghost"
+            size={button}
+            disabled={page <= 1}
+            onClick={() => onPage(page - 1)}
+          >
             Previous
           </Button>
         </li>
@@ -551,7 +723,12 @@ function Pager({ page, pageCount, onPage, size }: { page: number; pageCount: num
           ),
         )}
         <li>
-          <Button variant="ghost" size={button} disabled={page >= pageCount} onClick={() => onPage(page + 1)}>
+          <Button
+            variant="ghost"
+            size={button}
+            disabled={page >= pageCount}
+            onClick={() => onPage(page + 1)}
+          >
             Next
           </Button>
         </li>
@@ -572,7 +749,9 @@ function ColumnChooser({ table }: { table: ReturnType<typeof useReactTable<Regis
       <DialogContent size="sm">
         <DialogHeader>
           <DialogTitle>Columns</DialogTitle>
-          <DialogDescription>Choose what the register shows. The choice stays in the page address.</DialogDescription>
+          <DialogDescription>
+            Choose what the register shows. The choice stays in the page address.
+          </DialogDescription>
         </DialogHeader>
         <div className="grid grid-cols-1">
           {hideable.map((column) => (
