@@ -147,7 +147,7 @@ export const REMOTE_DUTY_LINES: SeedLine[] = [
 
   // Engineering: advice before the spanners, alignment and checks after.
   { key: "lift-signoff", code: "EN-01", category: "engineering", title: "Engineering sign-off for the lift and tyre change", requirement: "must_fit", costCents: 95_000, evidence: ["engineering_signoff"], dependsOn: ["tyres-all-terrain"] },
-  { key: "wheel-alignment", code: "EN-02", category: "engineering", title: "Wheel alignment after suspension work", requirement: "must_fit", costCents: 18_000, evidence: ["certificate"], dependsOn: ["lift", "springs-front", "springs-rear", "steering-damper", "tie-rod"] },
+  { key: "wheel-alignment", code: "EN-02", category: "engineering", title: "Wheel alignment after suspension work", requirement: "must_fit", costCents: 18_000, evidence: ["certificate"], dependsOn: ["lift", "springs-front", "springs-rear", "shocks", "airbags-rear", "steering-damper", "tie-rod", "transmission-cooler", "centre-bearing-spacer"] },
   { key: "speedo-check", code: "EN-03", category: "engineering", title: "Speedometer accuracy check after the tyre change", requirement: "must_fit", costCents: 12_000, evidence: ["certificate"], dependsOn: ["tyres-all-terrain"] },
   { key: "weighbridge", code: "EN-04", category: "engineering", title: "Weighbridge ticket of the fitted vehicle", requirement: "must_fit", costCents: 15_000, evidence: ["weighbridge_ticket"], dependsOn: ["front-bar", "winch", "drawers", "roof-rack", "water-tank", "dual-battery"] },
   { key: "brake-assessment", code: "EN-05", category: "engineering", title: "Brake upgrade assessment for the heavier vehicle", requirement: "may_fit", costCents: 45_000, evidence: ["certificate"], dependsOn: ["weighbridge"] },

@@ -246,7 +246,11 @@ export const getEdition = query({
     let warnings: { code: string; lineId: string; message: string }[] = [];
     if (!scoped && lines.length > 0) {
       try {
-        warnings = sequenceWarnings(lines.map(sequenceLine)).map((w) => ({ code: w.code, lineId: w.line.id, message: w.message }));
+        // A must-not-fit line is never fitted, so it needs no alignment after it.
+        const prohibited = new Set(lines.filter((l) => l.requirement === "must_not_fit").map((l) => l.id));
+        warnings = sequenceWarnings(lines.map(sequenceLine))
+          .filter((w) => !prohibited.has(w.line.id))
+          .map((w) => ({ code: w.code, lineId: w.line.id, message: w.message }));
       } catch {
         warnings = []; // a draft with a circle is reported when it is saved or published
       }
@@ -286,7 +290,9 @@ export const compareEditionsQuery = query({
     const [linesA, linesB] = await Promise.all([loadEditionLines(db(), a.edition.id), loadEditionLines(db(), b.edition.id)]);
     const comparison = compareLines(linesA, linesB);
     const describe = (e: NonNullable<typeof a>) => ({ id: e.edition.id, number: e.edition.number, status: e.edition.status, standardId: e.standard.id, standardName: e.standard.name });
-    return { a: describe(a), b: describe(b), ...comparison };
+    // Dependencies compare as keys: name each key by its code (the newer edition's, if both have it).
+    const codes = Object.fromEntries([...linesA, ...linesB].map((l) => [l.key, l.code]));
+    return { a: describe(a), b: describe(b), ...comparison, codes };
   },
 });
 
