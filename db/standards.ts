@@ -1,7 +1,7 @@
 import { and, asc, count, desc, eq, inArray, isNotNull, sql } from "drizzle-orm";
 import type { EditionLine } from "@/lib/variance";
 import type { DbOrTx } from "./client";
-import { editionLines, editions, lineDependencies, standards, users, vehicles } from "./schema";
+import { depots, editionLines, editions, lineDependencies, platforms, standards, users, vehicles } from "./schema";
 import { toEditionLine } from "./variance";
 
 /**
@@ -126,4 +126,34 @@ export async function publishedEditions(db: DbOrTx, orgId: string) {
     .innerJoin(standards, eq(standards.id, editions.standardId))
     .where(and(eq(editions.orgId, orgId), eq(editions.status, "published")))
     .orderBy(asc(standards.name), desc(editions.number));
+}
+
+/** Vehicles a manager may roll an edition out to (not retired), with their current edition. */
+export async function rolloutCandidates(db: DbOrTx, orgId: string) {
+  const rows = await db
+    .select({
+      id: vehicles.id,
+      fleetNumber: vehicles.fleetNumber,
+      depotName: depots.name,
+      make: platforms.make,
+      model: platforms.model,
+      editionId: vehicles.editionId,
+      editionNumber: editions.number,
+      standardName: standards.name,
+    })
+    .from(vehicles)
+    .innerJoin(platforms, eq(platforms.id, vehicles.platformId))
+    .leftJoin(depots, eq(depots.id, vehicles.depotId))
+    .leftJoin(editions, eq(editions.id, vehicles.editionId))
+    .leftJoin(standards, eq(standards.id, editions.standardId))
+    .where(and(eq(vehicles.orgId, orgId), sql`${vehicles.state} != 'retired'`))
+    .orderBy(asc(vehicles.fleetNumber));
+  return rows.map((r) => ({
+    id: r.id,
+    fleetNumber: r.fleetNumber,
+    depotName: r.depotName,
+    platform: `${r.make} ${r.model}`,
+    editionId: r.editionId,
+    editionLabel: r.editionId ? `${r.standardName ?? "Standard"} ed. ${r.editionNumber}` : null,
+  }));
 }
