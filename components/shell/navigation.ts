@@ -5,6 +5,8 @@ export type NavItem = { href: string; label: string; need: readonly [Action, Sub
 /** The app's navigation; each role sees the items its permissions allow. */
 export const NAV_ITEMS: NavItem[] = [
   { href: "/vehicles", label: "Vehicles", need: ["read", "Vehicle"] },
+  { href: "/standards", label: "Standards", need: ["read", "Standard"], roles: ["admin", "manager", "finance"] },
+  { href: "/variance", label: "Variance", need: ["read", "Variance"], roles: ["admin", "manager", "finance"] },
   { href: "/jobs", label: "Jobs", need: ["read", "Job"], roles: ["admin", "manager", "finance", "contractor"] },
   { href: "/drive", label: "My checks", need: ["create", "PreTripCheck"], roles: ["driver"] },
   { href: "/drive/report", label: "Report a defect", need: ["create", "Defect"], roles: ["driver"] },
