@@ -6,8 +6,8 @@ import { DefectStatePill, SeverityPill } from "./defect-pills";
 import { formatWhen } from "./defect-time";
 
 /** Defects for people at desks: most urgent first, each row opening the report. */
-export function DefectTable({ rows, empty, showVehicle = true }: { rows: DefectListRow[]; empty: string; showVehicle?: boolean }) {
-  if (rows.length === 0) return <EmptyState title={empty} />;
+export function DefectTable({ rows, empty, showVehicle = true, compactEmpty = false }: { rows: DefectListRow[]; empty: string; showVehicle?: boolean; compactEmpty?: boolean }) {
+  if (rows.length === 0) return compactEmpty ? <p className="text-sm text-muted">{empty}</p> : <EmptyState title={empty} />;
   return (
     <Table label="Defects">
       <THead>

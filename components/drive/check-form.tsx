@@ -5,6 +5,7 @@ import { Button, FormMessage, StatusShape, Textarea, buttonClasses, cn } from "@
 import { CHECK_RESULT_LABELS, CHECK_RESULTS, DEFECT_SEVERITIES, SEVERITY_LABELS, type CheckResult, type ChecklistItem, type DefectSeverity } from "@/lib/defects";
 import { newClientId, submitReport, type SubmitResult } from "@/lib/offline";
 import { PhotoPicker } from "./photo-picker";
+import { useOutbox } from "./use-outbox";
 
 type Vehicle = { id: string; fleetNumber: string };
 
@@ -29,8 +30,11 @@ export function CheckForm({ userId, vehicle, items }: { userId: string; vehicle:
   const [answers, setAnswers] = useState<Record<string, Answer>>(() => Object.fromEntries(items.map((i) => [i.key, blank()])));
   const [message, setMessage] = useState<string | null>(null);
   const [busy, setBusy] = useState(false);
-  const [result, setResult] = useState<{ outcome: SubmitResult; counts: Record<CheckResult, number> } | null>(null);
+  const [result, setResult] = useState<{ outcome: SubmitResult; counts: Record<CheckResult, number>; clientId: string } | null>(null);
   const pendingId = useRef<string | null>(null);
+  const { items: outbox } = useOutbox(userId);
+  /** A report saved without signal counts as sent once it has left the outbox. */
+  const leftOutbox = (id: string) => outbox !== null && !outbox.some((i) => i.id === id);
 
   const patch = (key: string, change: Partial<Answer>) => setAnswers((prev) => ({ ...prev, [key]: { ...(prev[key] ?? blank()), ...change } }));
   const answered = items.filter((i) => answers[i.key]?.result).length;
@@ -116,7 +120,7 @@ export function CheckForm({ userId, vehicle, items }: { userId: string; vehicle:
         return;
       }
       pendingId.current = null;
-      setResult({ outcome, counts });
+      setResult({ outcome, counts, clientId });
     } catch {
       setMessage("This phone could not save the check. Check its storage and try again.");
     } finally {
@@ -125,7 +129,7 @@ export function CheckForm({ userId, vehicle, items }: { userId: string; vehicle:
   };
 
   if (result) {
-    const sent = result.outcome.state === "sent";
+    const sent = result.outcome.state === "sent" || leftOutbox(result.clientId);
     const { pass, fail, na } = result.counts;
     return (
       <section aria-label="Check" data-testid="check-result" className="flex flex-col gap-4 rounded-lg border-2 border-line bg-surface-raised p-4">
@@ -197,9 +201,9 @@ export function CheckForm({ userId, vehicle, items }: { userId: string; vehicle:
                     <PhotoPicker photos={a.photos} onChange={(photos) => patch(item.key, { photos })} max={3} idPrefix={`check-photo-${index}`} />
                     {a.raised ? (
                       <p className="flex items-start gap-2 rounded-md bg-surface-sunken px-3 py-2 text-base font-semibold" data-testid={`raised-${item.key}`}>
-                        <StatusShape tone={a.raised.outcome === "sent" ? "ok" : "warn"} sizePx={16} className="mt-1" />
+                        <StatusShape tone={a.raised.outcome === "sent" || leftOutbox(a.raised.clientId) ? "ok" : "warn"} sizePx={16} className="mt-1" />
                         <span>
-                          Defect raised ({SEVERITY_LABELS[a.raised.severity]}) — {a.raised.outcome === "sent" ? "sent" : "waiting to send"}.
+                          Defect raised ({SEVERITY_LABELS[a.raised.severity]}) — {a.raised.outcome === "sent" || leftOutbox(a.raised.clientId) ? "sent" : "waiting to send"}.
                           {a.raised.grounded && ` ${vehicle.fleetNumber} is now grounded: do not drive it.`}
                         </span>
                       </p>

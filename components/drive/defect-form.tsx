@@ -7,6 +7,7 @@ import { newClientId, submitReport, type SubmitResult } from "@/lib/offline";
 import { LocationField, type Position } from "./location-field";
 import { PhotoPicker } from "./photo-picker";
 import { SeverityChoice } from "./severity-choice";
+import { useOutbox } from "./use-outbox";
 
 type Vehicle = { id: string; fleetNumber: string; registration: string | null; odometerKm: number | null };
 
@@ -27,7 +28,11 @@ export function DefectForm({ userId, vehicle }: { userId: string; vehicle: Vehic
   const [message, setMessage] = useState<string | null>(null);
   const [busy, setBusy] = useState(false);
   const [result, setResult] = useState<SubmitResult | null>(null);
+  const [queuedId, setQueuedId] = useState<string | null>(null);
   const pendingId = useRef<string | null>(null);
+  const { items: outbox } = useOutbox(userId);
+  // A report saved without signal leaves the outbox once it is sent (from this page or another).
+  const sentLater = result?.state === "queued" && queuedId !== null && outbox !== null && !outbox.some((i) => i.id === queuedId);
 
   // A defect raised from a check item arrives with its category and words filled in.
   useEffect(() => {
@@ -53,6 +58,7 @@ export function DefectForm({ userId, vehicle }: { userId: string; vehicle: Vehic
     setErrors({});
     setMessage(null);
     setResult(null);
+    setQueuedId(null);
     pendingId.current = null;
   };
 
@@ -100,6 +106,7 @@ export function DefectForm({ userId, vehicle }: { userId: string; vehicle: Vehic
         return;
       }
       setResult(outcome);
+      setQueuedId(outcome.state === "queued" ? clientId : null);
       pendingId.current = null;
     } catch {
       setMessage("This phone could not save the report. Check its storage and try again.");
@@ -128,6 +135,13 @@ export function DefectForm({ userId, vehicle }: { userId: string; vehicle: Vehic
                 See its status
               </a>
             )}
+          </>
+        ) : sentLater ? (
+          <>
+            <p className="flex items-center gap-2 text-xl font-bold">
+              <StatusShape tone="ok" sizePx={18} /> Sent
+            </p>
+            <p className="text-lg">The phone had signal again and sent it. Status: Reported. {STATE_HINTS.reported}</p>
           </>
         ) : (
           <>

@@ -71,9 +71,11 @@ export default async function DefectDetailPage({ params }: { params: Promise<{ i
           </span>
         }
       />
-      <p className="text-lg font-semibold" data-testid="defect-state-hint">
-        {STATE_HINTS[defect.state]}
-      </p>
+      {isDriver && (
+        <p className="text-lg font-semibold" data-testid="defect-state-hint">
+          {STATE_HINTS[defect.state]}
+        </p>
+      )}
       {found.vehicleState === "grounded" && (
         <p className="rounded-lg border-l-8 border-danger bg-danger-soft px-4 py-3 font-semibold text-danger-ink" data-testid="vehicle-grounded">
           {found.fleetNumber} is grounded{found.groundedReason ? `: ${found.groundedReason}` : "."}

@@ -1,7 +1,8 @@
 import type { Metadata } from "next";
 import { DefectTable } from "@/components/defects/defect-table";
 import { formatWhen } from "@/components/defects/defect-time";
-import { Card, CardBody, CardHeader, EmptyState, TBody, Table, Td, Th, THead, Tr } from "@/components/ui";
+import { VehicleReadinessPanel } from "@/components/readiness";
+import { Card, CardBody, CardHeader, TBody, Table, Td, Th, THead, Tr } from "@/components/ui";
 import { db } from "@/db/client";
 import { listChecks, listDefects } from "@/db/defects";
 import { requirePermission } from "@/lib/server/guard";
@@ -21,16 +22,17 @@ export default async function VehicleDefectsPage({ params }: { params: Promise<{
   const checks = canReadChecks ? await listChecks(db(), user, { vehicleId: id, limit: 10 }) : [];
   return (
     <div className="flex flex-col gap-6">
+      {user.ability.can("read", "Variance") && <VehicleReadinessPanel actor={user} vehicleId={id} />}
       <Card>
         <CardHeader title="Open defects" description="Reported, triaged or in repair: these count against the vehicle's readiness." />
         <CardBody>
-          <DefectTable rows={open} empty="No open defect on this vehicle." showVehicle={false} />
+          <DefectTable rows={open} empty="No open defect on this vehicle." showVehicle={false} compactEmpty />
         </CardBody>
       </Card>
       <Card>
         <CardHeader title="Resolved, closed and merged" />
         <CardBody>
-          <DefectTable rows={past} empty="Nothing here yet." showVehicle={false} />
+          <DefectTable rows={past} empty="None yet." showVehicle={false} compactEmpty />
         </CardBody>
       </Card>
       {canReadChecks && (
@@ -38,7 +40,7 @@ export default async function VehicleDefectsPage({ params }: { params: Promise<{
           <CardHeader title="Recent pre-trip checks" />
           <CardBody>
             {checks.length === 0 ? (
-              <EmptyState title="No pre-trip check yet" />
+              <p className="text-sm text-muted">No pre-trip check yet.</p>
             ) : (
               <Table label="Pre-trip checks">
                 <THead>
