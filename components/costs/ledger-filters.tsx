@@ -33,7 +33,7 @@ export function LedgerFilters({ values, options, now, action = "/costs" }: { val
           All dates
         </Link>
       </div>
-      <div className="grid grid-cols-2 items-end gap-3 md:grid-cols-4 xl:grid-cols-8">
+      <div className="grid grid-cols-2 items-end gap-3 md:grid-cols-4">
         <Field label="From" id="filter-from">
           <Input type="date" name="from" defaultValue={values.from ?? ""} />
         </Field>

@@ -1,13 +1,15 @@
 /**
  * Demo money: a year of invented costs across the organisation's cost centres and categories,
  * budgets per cost centre for the financial years the costs fall in, and half a year of daily
- * fleet figures for the charts over time. Amounts, descriptions and references are invented;
+ * fleet figures for the charts over time (run it after the standards, jobs and defects are
+ * seeded: the figures lead up to the fleet's live state). Amounts, descriptions and references are invented;
  * they come from a seeded generator, so every run of the seed writes the same figures for the
  * same months.
  */
 import { asc, eq } from "drizzle-orm";
 import { gstOnExclusive } from "@/lib/money";
 import type { Database } from "../client";
+import { fleetFiguresNow } from "../costs";
 import { budgets, costs, fleetSnapshots, vehicles } from "../schema";
 
 type Category = (typeof costs.category.enumValues)[number];
@@ -92,9 +94,12 @@ export async function seedCosts(tx: Database, orgId: string, now = new Date()): 
     const monthStart = Date.UTC(firstMonth.getUTCFullYear(), firstMonth.getUTCMonth() + m, 1);
     const monthEnd = Math.min(Date.UTC(firstMonth.getUTCFullYear(), firstMonth.getUTCMonth() + m + 1, 1) - DAY_MS, today);
     const days = Math.floor((monthEnd - monthStart) / DAY_MS) + 1;
+    const daysInMonth = Math.round((Date.UTC(firstMonth.getUTCFullYear(), firstMonth.getUTCMonth() + m + 1, 1) - monthStart) / DAY_MS);
+    // The month under way has only had its first days' invoices.
+    const share = days / daysInMonth;
     for (const vehicle of fleet) {
       if (vehicle.state === "retired" && m > 3) continue;
-      const entries = random() < 0.62 ? (random() < 0.25 ? 2 : 1) : 0;
+      const entries = random() < 0.62 * share ? (random() < 0.25 ? 2 : 1) : 0;
       for (let e = 0; e < entries; e++) {
         const item = pick(random);
         const dollars = item.minDollars + random() * (item.maxDollars - item.minDollars);
@@ -158,32 +163,29 @@ export async function seedCosts(tx: Database, orgId: string, now = new Date()): 
   }
   await insertInChunks(budgetRows, (chunk) => tx.insert(budgets).values(chunk));
 
-  // ── Daily fleet figures for the last 180 days up to yesterday: readiness improving and
-  // gaps closing, with the ups and downs of real weeks.
-  const active = fleet.filter((v) => v.state !== "retired").length;
+  // ── Daily fleet figures for the last 180 days up to yesterday. They are walked backwards
+  // from today's live figures (so the charts meet today's point), each day back a little less
+  // ready and with a few more gaps open, with the ups and downs of real weeks.
+  const live = await fleetFiguresNow(tx, orgId, now);
+  const active = live.ready + live.limited + live.notReady;
   const snapshotRows: (typeof fleetSnapshots.$inferInsert)[] = [];
-  let ready = Math.round(active * 0.45);
-  let limited = Math.round(active * 0.3);
-  let gaps = active * 6;
-  let meeting = Math.round(active * 0.2);
-  for (let d = 180; d >= 1; d--) {
-    const day = new Date(today - d * DAY_MS).toISOString().slice(0, 10);
-    // Slow net gain: a vehicle is made ready about every fortnight, with setbacks on the way.
-    const drift = random();
-    if (drift < 0.16 && ready + limited < active) ready += 1;
-    else if (drift < 0.27 && ready > 0) ready -= 1;
-    if (random() < 0.08 && limited > 0 && ready < active) {
-      limited -= 1;
-      ready += 1;
-    } else if (random() < 0.05 && ready > 0) {
+  let { ready, limited, meetingStandard: meeting, openGaps: gaps } = live;
+  for (let d = 1; d <= 180; d++) {
+    // Going back in time: a vehicle made ready about every fortnight is one less ready then.
+    const step = random();
+    if (step < 0.12 && ready > 0) {
       ready -= 1;
-      limited += 1;
-    }
-    ready = Math.min(ready, active);
+      if (random() < 0.5) limited += 1;
+    } else if (step < 0.17 && ready + limited < active) ready += 1;
+    if (random() < 0.05 && limited > 0) limited -= 1;
+    else if (random() < 0.04 && ready + limited < active) limited += 1;
     limited = Math.min(limited, active - ready);
-    gaps = Math.max(0, gaps - (random() < 0.55 ? 1 + Math.floor(random() * 2) : 0) + (random() < 0.12 ? 3 : 0));
-    if (random() < 0.18 && meeting < active) meeting += 1;
-    else if (random() < 0.05 && meeting > 0) meeting -= 1;
+    gaps += random() < 0.5 ? Math.floor(random() * 3) : 0;
+    if (random() < 0.08 && gaps > 0) gaps -= 2;
+    gaps = Math.max(0, gaps);
+    if (random() < 0.14 && meeting > 0) meeting -= 1;
+    else if (random() < 0.03 && meeting < active) meeting += 1;
+    const day = new Date(today - d * DAY_MS).toISOString().slice(0, 10);
     snapshotRows.push({ orgId, day, ready, limited, notReady: active - ready - limited, meetingStandard: meeting, openGaps: gaps });
   }
   await insertInChunks(snapshotRows, (chunk) => tx.insert(fleetSnapshots).values(chunk));
