@@ -116,7 +116,7 @@ async function seedOrganisation(tx: Database, scenario: DemoOrganisation, passwo
     }
   }
   await seedStandards(tx, org.id, scenario.slug);
-  await seedCosts(tx, org.id);
   await seedJobs(tx, org.id);
   await seedDefects(tx, org.id);
+  await seedCosts(tx, org.id);
 }
