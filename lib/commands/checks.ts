@@ -1,5 +1,4 @@
 import "server-only";
-import { and, eq } from "drizzle-orm";
 import { z } from "zod";
 import { db } from "@/db/client";
 import { checkableLines, findCheck, findCheckByClientId, findPhoto, listChecks, vehicleForReport } from "@/db/defects";
@@ -194,9 +193,3 @@ export const readCheckPhoto = query({
     return { bytes: file.bytes, contentType: photo.contentType, filename: photo.filename };
   },
 });
-
-/** Not an operation: the evidence rows of one check, in one query (for the check's page). */
-export async function checkPhotoIds(orgId: string, checkId: string): Promise<string[]> {
-  const rows = await db().select({ id: evidence.id }).from(evidence).where(and(eq(evidence.orgId, orgId), eq(evidence.checkId, checkId)));
-  return rows.map((r) => r.id);
-}
