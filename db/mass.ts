@@ -102,6 +102,7 @@ export async function loadMassContext(db: DbOrTx, actor: Actor, vehicleId: strin
       massKind: (line ? line.massKind : f.massKind) ?? "constant",
       fittedAt: f.fittedAt.toISOString(),
       attributes,
+      evidenceNeeded: line ? [...line.evidenceNeeded] : [],
       evidenceStatus,
     };
     const tyreSize = typeof attributes.tyreSize === "string" && attributes.tyreSize.trim() !== "" ? attributes.tyreSize.trim() : null;
@@ -120,6 +121,8 @@ export async function loadMassContext(db: DbOrTx, actor: Actor, vehicleId: strin
     return item;
   });
 
+  // Lines in code order, then extras by name: the order people read a fit-out in.
+  fitted.sort((a, b) => (a.lineCode === null) !== (b.lineCode === null) ? (a.lineCode === null ? 1 : -1) : (a.lineCode ?? a.label).localeCompare(b.lineCode ?? b.label));
   const planned = await listPlannedItems(db, actor.orgId, vehicle.id);
 
   const context: MassContext = {

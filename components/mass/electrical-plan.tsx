@@ -119,14 +119,14 @@ export function ElectricalPlan() {
       <fieldset className="flex flex-col gap-2">
         <legend className="mb-1 font-semibold">Consumers</legend>
         {consumers.map((c, i) => (
-          <div key={i} className="grid grid-cols-[1fr_7rem_7rem_auto] items-end gap-2">
-            <Field label={i === 0 ? "Consumer" : <span className="sr-only">Consumer</span>} id={`consumer-${i}-label`}>
+          <div key={i} className="grid grid-cols-2 items-end gap-2 border-b border-line pb-3 sm:grid-cols-[1fr_7rem_7rem_auto] sm:border-0 sm:pb-0 [&>*:first-child]:col-span-2 sm:[&>*:first-child]:col-span-1">
+            <Field label={<span className={i === 0 ? undefined : "sm:sr-only"}>Consumer</span>} id={`consumer-${i}-label`}>
               <Input value={c.label} onChange={(e) => setConsumers(consumers.map((x, j) => (j === i ? { ...x, label: e.target.value } : x)))} />
             </Field>
-            <Field label={i === 0 ? "Current (A)" : <span className="sr-only">Current (A)</span>} error={errorFor(battery, "consumers", i, "currentA")} id={`consumer-${i}-a`}>
+            <Field label={<span className={i === 0 ? undefined : "sm:sr-only"}>Current (A)</span>} error={errorFor(battery, "consumers", i, "currentA")} id={`consumer-${i}-a`}>
               <Input inputMode="decimal" value={c.currentA} onChange={(e) => setConsumers(consumers.map((x, j) => (j === i ? { ...x, currentA: e.target.value } : x)))} />
             </Field>
-            <Field label={i === 0 ? "Hours a day" : <span className="sr-only">Hours a day</span>} error={errorFor(battery, "consumers", i, "hoursPerDay")} id={`consumer-${i}-h`}>
+            <Field label={<span className={i === 0 ? undefined : "sm:sr-only"}>Hours a day</span>} error={errorFor(battery, "consumers", i, "hoursPerDay")} id={`consumer-${i}-h`}>
               <Input inputMode="decimal" value={c.hoursPerDay} onChange={(e) => setConsumers(consumers.map((x, j) => (j === i ? { ...x, hoursPerDay: e.target.value } : x)))} />
             </Field>
             <Button type="button" variant="ghost" size="md" onClick={() => setConsumers(consumers.filter((_, j) => j !== i))} aria-label={`Remove ${c.label || "consumer"}`} disabled={consumers.length === 1}>
@@ -157,8 +157,8 @@ export function ElectricalPlan() {
       <fieldset className="flex flex-col gap-2">
         <legend className="mb-1 font-semibold">Charging sources</legend>
         {sources.map((s, i) => (
-          <div key={i} className="grid grid-cols-[1fr_6rem_5rem_7rem_auto] items-end gap-2">
-            <Field label={i === 0 ? "Source" : <span className="sr-only">Source</span>} id={`source-${i}-kind`}>
+          <div key={i} className="grid grid-cols-2 items-end gap-2 border-b border-line pb-3 sm:grid-cols-[1fr_6rem_5rem_7rem_auto] sm:border-0 sm:pb-0 [&>*:first-child]:col-span-2 sm:[&>*:first-child]:col-span-1">
+            <Field label={<span className={i === 0 ? undefined : "sm:sr-only"}>Source</span>} id={`source-${i}-kind`}>
               <Select value={s.kind} onChange={(e) => setSources(sources.map((x, j) => (j === i ? { ...x, kind: e.target.value as ChargeSourceKind } : x)))}>
                 {(Object.keys(SOURCE_LABEL) as ChargeSourceKind[]).map((k) => (
                   <option key={k} value={k}>
@@ -167,16 +167,16 @@ export function ElectricalPlan() {
                 ))}
               </Select>
             </Field>
-            <Field label={i === 0 ? "Output" : <span className="sr-only">Output</span>} error={errorFor(recharge, "sources", i, s.unit === "A" ? "currentA" : "watts")} id={`source-${i}-amount`}>
+            <Field label={<span className={i === 0 ? undefined : "sm:sr-only"}>Output</span>} error={errorFor(recharge, "sources", i, s.unit === "A" ? "currentA" : "watts")} id={`source-${i}-amount`}>
               <Input inputMode="decimal" value={s.amount} onChange={(e) => setSources(sources.map((x, j) => (j === i ? { ...x, amount: e.target.value } : x)))} />
             </Field>
-            <Field label={i === 0 ? "Unit" : <span className="sr-only">Unit</span>} id={`source-${i}-unit`}>
+            <Field label={<span className={i === 0 ? undefined : "sm:sr-only"}>Unit</span>} id={`source-${i}-unit`}>
               <Select value={s.unit} onChange={(e) => setSources(sources.map((x, j) => (j === i ? { ...x, unit: e.target.value as "A" | "W" } : x)))}>
                 <option value="A">A</option>
                 <option value="W">W</option>
               </Select>
             </Field>
-            <Field label={i === 0 ? "Hours a day" : <span className="sr-only">Hours a day</span>} error={errorFor(recharge, "sources", i, "hoursPerDay")} id={`source-${i}-h`}>
+            <Field label={<span className={i === 0 ? undefined : "sm:sr-only"}>Hours a day</span>} error={errorFor(recharge, "sources", i, "hoursPerDay")} id={`source-${i}-h`}>
               <Input inputMode="decimal" value={s.hoursPerDay} onChange={(e) => setSources(sources.map((x, j) => (j === i ? { ...x, hoursPerDay: e.target.value } : x)))} />
             </Field>
             <Button type="button" variant="ghost" size="md" onClick={() => setSources(sources.filter((_, j) => j !== i))} aria-label={`Remove ${SOURCE_LABEL[s.kind]}`}>
@@ -210,17 +210,17 @@ export function ElectricalPlan() {
       <fieldset className="flex flex-col gap-2">
         <legend className="mb-1 font-semibold">Cable runs</legend>
         {runs.map((r, i) => (
-          <div key={i} className="grid grid-cols-[1fr_6rem_7rem_8rem_auto] items-end gap-2">
-            <Field label={i === 0 ? "Run" : <span className="sr-only">Run</span>} id={`run-${i}-label`}>
+          <div key={i} className="grid grid-cols-2 items-end gap-2 border-b border-line pb-3 sm:grid-cols-[1fr_6rem_7rem_8rem_auto] sm:border-0 sm:pb-0 [&>*:first-child]:col-span-2 sm:[&>*:first-child]:col-span-1">
+            <Field label={<span className={i === 0 ? undefined : "sm:sr-only"}>Run</span>} id={`run-${i}-label`}>
               <Input value={r.label} onChange={(e) => setRuns(runs.map((x, j) => (j === i ? { ...x, label: e.target.value } : x)))} />
             </Field>
-            <Field label={i === 0 ? "Current (A)" : <span className="sr-only">Current (A)</span>} error={cable[i]?.error?.field === "currentA" ? cable[i]?.error?.message : undefined} id={`run-${i}-a`}>
+            <Field label={<span className={i === 0 ? undefined : "sm:sr-only"}>Current (A)</span>} error={cable[i]?.error?.field === "currentA" ? cable[i]?.error?.message : undefined} id={`run-${i}-a`}>
               <Input inputMode="decimal" value={r.currentA} onChange={(e) => setRuns(runs.map((x, j) => (j === i ? { ...x, currentA: e.target.value } : x)))} />
             </Field>
-            <Field label={i === 0 ? "One way (m)" : <span className="sr-only">One way (m)</span>} error={cable[i]?.error?.field === "lengthOneWayM" ? cable[i]?.error?.message : undefined} id={`run-${i}-m`}>
+            <Field label={<span className={i === 0 ? undefined : "sm:sr-only"}>One way (m)</span>} error={cable[i]?.error?.field === "lengthOneWayM" ? cable[i]?.error?.message : undefined} id={`run-${i}-m`}>
               <Input inputMode="decimal" value={r.lengthM} onChange={(e) => setRuns(runs.map((x, j) => (j === i ? { ...x, lengthM: e.target.value } : x)))} />
             </Field>
-            <Field label={i === 0 ? "Circuit" : <span className="sr-only">Circuit</span>} id={`run-${i}-circuit`}>
+            <Field label={<span className={i === 0 ? undefined : "sm:sr-only"}>Circuit</span>} id={`run-${i}-circuit`}>
               <Select value={r.circuit} onChange={(e) => setRuns(runs.map((x, j) => (j === i ? { ...x, circuit: e.target.value as RunRow["circuit"] } : x)))}>
                 <option value="critical">Critical (3 %)</option>
                 <option value="other">Other (10 %)</option>

@@ -129,8 +129,8 @@ export function MassWorkspace({ data }: { data: MassTabData }) {
         </CardBody>
       </Card>
 
-      <div className="grid grid-cols-1 gap-6 lg:grid-cols-3">
-        <Card className="lg:col-span-2">
+      <div className="grid grid-cols-1 gap-6 lg:grid-cols-3 [&>*]:min-w-0">
+        <Card className="min-w-0 lg:col-span-2">
           <CardHeader
             title="Loads, limits and headroom"
             description={
@@ -241,9 +241,13 @@ export function MassWorkspace({ data }: { data: MassTabData }) {
                       </Td>
                       <Td>{positionWords(f)}</Td>
                       <Td>
-                        <StatusPill tone={f.evidenceStatus === "accepted" ? "ok" : f.evidenceStatus === "rejected" ? "danger" : f.evidenceStatus === "lodged" ? "info" : "neutral"} size="sm">
-                          {EVIDENCE_WORDS[f.evidenceStatus]}
-                        </StatusPill>
+                        {f.evidenceStatus === "none" && f.evidenceNeeded.length === 0 ? (
+                          <span className="text-sm text-muted">Not needed</span>
+                        ) : (
+                          <StatusPill tone={f.evidenceStatus === "accepted" ? "ok" : f.evidenceStatus === "rejected" ? "danger" : f.evidenceStatus === "lodged" ? "info" : "warn"} size="sm">
+                            {EVIDENCE_WORDS[f.evidenceStatus]}
+                          </StatusPill>
+                        )}
                       </Td>
                     </Tr>
                   ))}
@@ -254,7 +258,7 @@ export function MassWorkspace({ data }: { data: MassTabData }) {
         </CardBody>
       </Card>
 
-      <div className="grid grid-cols-1 gap-6 xl:grid-cols-2">
+      <div className="grid grid-cols-1 gap-6 xl:grid-cols-2 [&>*]:min-w-0">
         <Card>
           <CardHeader
             title="Tyre change check"

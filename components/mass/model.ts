@@ -65,6 +65,8 @@ export type FittedItem = {
   /** ISO date-time. */
   fittedAt: string;
   attributes: Record<string, number | string>;
+  /** Evidence kinds the linked line asks for (none for extras and lines that need none). */
+  evidenceNeeded: string[];
   evidenceStatus: "accepted" | "lodged" | "rejected" | "none";
 };
 

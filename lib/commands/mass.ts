@@ -493,6 +493,12 @@ const EVIDENCE_WORDS: Record<MassContext["fitted"][number]["evidenceStatus"], st
   none: "None yet",
 };
 
+/** The evidence state of a fitted item in words; items whose line asks for none say so. */
+export function evidenceWords(item: Pick<MassContext["fitted"][number], "evidenceStatus" | "evidenceNeeded">): string {
+  if (item.evidenceStatus === "none" && item.evidenceNeeded.length === 0) return "Not needed";
+  return EVIDENCE_WORDS[item.evidenceStatus];
+}
+
 export function positionText(item: { xMm: number | null; zone: string | null }): string {
   if (item.xMm !== null) return `${Math.round(item.xMm).toLocaleString("en-AU")} mm`;
   if (item.zone) return ZONE_LABELS[item.zone as keyof typeof ZONE_LABELS] ?? item.zone;
@@ -585,7 +591,7 @@ export const statementQuery = query({
         quantity: f.quantity,
         massKg: f.massKg,
         position: positionText(f),
-        evidence: EVIDENCE_WORDS[f.evidenceStatus],
+        evidence: evidenceWords(f),
       })),
       planned: response.planned.map((p) => ({
         label: p.label,

@@ -19,8 +19,8 @@ const WARN_INK = "#523d12";
 const styles = StyleSheet.create({
   page: { paddingTop: 36, paddingBottom: 56, paddingHorizontal: 40, fontSize: 9, fontFamily: "Helvetica", color: INK, lineHeight: 1.35 },
   brand: { fontSize: 9, color: ACCENT, fontFamily: "Helvetica-Bold", letterSpacing: 1 },
-  title: { fontSize: 18, fontFamily: "Helvetica-Bold", marginTop: 4 },
-  subtitle: { fontSize: 10, color: MUTED, marginTop: 2 },
+  title: { fontSize: 18, fontFamily: "Helvetica-Bold", marginTop: 6, lineHeight: 1.2 },
+  subtitle: { fontSize: 10, color: MUTED, marginTop: 4 },
   facts: { flexDirection: "row", flexWrap: "wrap", marginTop: 10, borderTopWidth: 1, borderTopColor: LINE, paddingTop: 8 },
   fact: { width: "33%", marginBottom: 6 },
   factLabel: { fontSize: 7.5, color: MUTED, textTransform: "uppercase" },
@@ -29,7 +29,8 @@ const styles = StyleSheet.create({
   heading: { fontSize: 11, fontFamily: "Helvetica-Bold", color: ACCENT, marginBottom: 5 },
   row: { flexDirection: "row", borderBottomWidth: 0.75, borderBottomColor: LINE, paddingVertical: 3 },
   headRow: { flexDirection: "row", borderBottomWidth: 1, borderBottomColor: MUTED, paddingBottom: 3 },
-  th: { fontSize: 7.5, color: MUTED, fontFamily: "Helvetica-Bold", textTransform: "uppercase" },
+  th: { fontSize: 7.5, color: MUTED, fontFamily: "Helvetica-Bold", textTransform: "uppercase", paddingRight: 8 },
+  cell: { paddingRight: 8 },
   num: { textAlign: "right" },
   caution: { backgroundColor: WARN_SOFT, color: WARN_INK, padding: 8, borderRadius: 3, marginTop: 12 },
   cautionText: { fontFamily: "Helvetica-Bold", fontSize: 8.5 },
@@ -40,11 +41,13 @@ const styles = StyleSheet.create({
 });
 
 const nf = new Intl.NumberFormat("en-AU", { maximumFractionDigits: 0, minimumFractionDigits: 0 });
+const nf1 = new Intl.NumberFormat("en-AU", { maximumFractionDigits: 1, minimumFractionDigits: 1 });
 const signed = new Intl.NumberFormat("en-AU", { maximumFractionDigits: 0, signDisplay: "exceptZero" });
 
-/** "1,234 kg"; negative zero and NaN never reach the page. */
+/** "1,234 kg" ("0.2 kg" for small part-kilogram items); negative zero and NaN never reach the page. */
 export function kg(value: number | null | undefined, withSign = false): string {
   if (value === null || value === undefined || !Number.isFinite(value)) return "-";
+  if (!withSign && Math.abs(value) < 10 && !Number.isInteger(value)) return `${nf1.format(value)} kg`;
   const rounded = Math.round(value) === 0 ? 0 : value;
   return `${(withSign ? signed : nf).format(rounded)} kg`;
 }
@@ -63,7 +66,9 @@ function Fact({ label, value }: { label: string; value: string | null }) {
 function Section({ title, children }: { title: string; children: ReactNode }) {
   return (
     <View style={styles.section}>
-      <Text style={styles.heading}>{title}</Text>
+      <Text style={styles.heading} minPresenceAhead={40}>
+        {title}
+      </Text>
       {children}
     </View>
   );
@@ -74,7 +79,7 @@ type Col = { title: string; width: string; numeric?: boolean };
 function Table({ cols, rows }: { cols: Col[]; rows: ReactNode[][] }) {
   return (
     <View>
-      <View style={styles.headRow} fixed>
+      <View style={styles.headRow} fixed minPresenceAhead={24}>
         {cols.map((c) => (
           <Text key={c.title} style={[styles.th, { width: c.width }, c.numeric ? styles.num : {}]}>
             {c.title}
@@ -86,7 +91,7 @@ function Table({ cols, rows }: { cols: Col[]; rows: ReactNode[][] }) {
           {cells.map((cell, j) => {
             const col = cols[j];
             return (
-              <View key={j} style={{ width: col?.width ?? "auto" }}>
+              <View key={j} style={[styles.cell, { width: col?.width ?? "auto" }]}>
                 {typeof cell === "string" ? <Text style={col?.numeric ? styles.num : {}}>{cell}</Text> : cell}
               </View>
             );
@@ -124,7 +129,7 @@ export function StatementDocument({ data }: { data: StatementData }) {
   return (
     <Document title={`Mass statement ${v.fleetNumber}`} author="Rigline" subject={`Mass and fit-out of ${v.fleetNumber}`} creator="Rigline" producer="Rigline">
       <Page size="A4" style={styles.page}>
-        <Text style={styles.brand}>RIGLINE - MASS STATEMENT</Text>
+        <Text style={styles.brand}>RIGLINE — MASS STATEMENT</Text>
         <Text style={styles.title}>{v.fleetNumber}</Text>
         <Text style={styles.subtitle}>{v.platform}</Text>
         <View style={styles.facts}>
@@ -171,7 +176,7 @@ export function StatementDocument({ data }: { data: StatementData }) {
           {data.binding ? (
             <View style={styles.binding}>
               <Text style={styles.bindingText}>
-                Binding limit: {data.binding.label} - {data.binding.marginKg < 0 ? `${kg(-data.binding.marginKg)} over` : `${kg(data.binding.marginKg)} to spare`}
+                Binding limit: {data.binding.label} — {data.binding.marginKg < 0 ? `${kg(-data.binding.marginKg)} over` : `${kg(data.binding.marginKg)} to spare`}
               </Text>
             </View>
           ) : (
@@ -227,7 +232,7 @@ export function StatementDocument({ data }: { data: StatementData }) {
                 { title: "Position", width: "16%" },
                 { title: "Evidence", width: "14%" },
               ]}
-              rows={data.fitted.map((f) => [f.code, f.label, String(f.quantity), kg(f.massKg), `  ${f.position}`, f.evidence])}
+              rows={data.fitted.map((f) => [f.code, f.label, String(f.quantity), kg(f.massKg), f.position, f.evidence])}
             />
           )}
         </Section>
@@ -244,7 +249,7 @@ export function StatementDocument({ data }: { data: StatementData }) {
                   { title: "Position", width: "20%" },
                   { title: "Kind", width: "15%" },
                 ]}
-                rows={data.planned.map((p) => [p.label, kg(p.massKg), `  ${p.position}`, p.kind])}
+                rows={data.planned.map((p) => [p.label, kg(p.massKg), p.position, p.kind])}
               />
             )}
           </Section>
@@ -272,7 +277,7 @@ export function StatementDocument({ data }: { data: StatementData }) {
           style={styles.footer}
           fixed
           render={({ pageNumber, totalPages }) =>
-            `${v.fleetNumber} - planning aid, not a certificate. Weigh on a certified weighbridge; modifications are decided under local rules by an authorised vehicle engineer. Page ${pageNumber} of ${totalPages}`
+            `${v.fleetNumber} — planning aid, not a certificate. Weigh on a certified weighbridge; modifications are decided under local rules by an authorised vehicle engineer. Page ${pageNumber} of ${totalPages}`
           }
         />
       </Page>
