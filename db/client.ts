@@ -4,6 +4,7 @@ import { mkdirSync } from "node:fs";
 import { dirname } from "node:path";
 import { env } from "@/lib/env";
 import * as schema from "./schema";
+import { serialiseWrites } from "./write-queue";
 
 export type Database = LibSQLDatabase<typeof schema>;
 /** A transaction handle has the same query API as the database. */
@@ -16,8 +17,9 @@ export function openClient(url: string, authToken?: string): Client {
     const path = url.slice("file:".length);
     if (path && path !== ":memory:") mkdirSync(dirname(path), { recursive: true });
   }
-  // timeout = SQLite busy timeout, so concurrent writers wait instead of failing at once.
-  return createClient({ url, authToken, timeout: 5000 });
+  // timeout = SQLite busy timeout, so writers of other processes wait instead of failing at once.
+  const client = createClient({ url, authToken, timeout: 5000 });
+  return url.startsWith("file:") ? serialiseWrites(client) : client;
 }
 
 export async function prepareLocal(client: Client, url: string): Promise<void> {

@@ -60,6 +60,9 @@ export function toAppError(error: unknown): AppError {
       { field: error.field, message: error.message },
     ]);
   }
+  if ((error as Error)?.name === "DatabaseBusyError" || /SQLITE_BUSY/.test(String((error as Error)?.message))) {
+    return new AppError("conflict", "Someone else was saving at the same moment; nothing was changed. Try again.");
+  }
   if (isUniqueViolation(error)) {
     return new AppError("conflict", "A record with the same unique value already exists");
   }
