@@ -83,7 +83,7 @@ export async function run(): Promise<BenchResult[]> {
       const prefix = format === "csv" ? "C" : "X";
       const data = rows(prefix);
       const bytes = format === "csv" ? csvOf(data) : await xlsxOf(data);
-      const file = (name: string) => new Blob([new Uint8Array(bytes)], { type: "application/octet-stream" }) as Blob & { name?: string };
+      const file = () => new Blob([new Uint8Array(bytes)], { type: "application/octet-stream" }) as Blob & { name?: string };
 
       // Baseline: raw parse plus one transactional insert of the same rows (into a scratch organisation).
       const [baselineMs] = await timed(async () => {
@@ -117,8 +117,8 @@ export async function run(): Promise<BenchResult[]> {
         });
       });
 
-      const [dryMs, dry] = await timed(() => importVehicleFile(user, { file: file(`bench.${format}`), dryRun: "1", mode: "good_rows" }));
-      const [commitMs, committed] = await timed(() => importVehicleFile(user, { file: file(`bench.${format}`), mode: "good_rows" }));
+      const [dryMs, dry] = await timed(() => importVehicleFile(user, { file: file(), dryRun: "1", mode: "good_rows" }));
+      const [commitMs, committed] = await timed(() => importVehicleFile(user, { file: file(), mode: "good_rows" }));
       if (dry.valid !== ROWS || committed.created !== ROWS) {
         throw new Error(`${format}: expected ${ROWS} valid and created rows, got ${dry.valid} / ${committed.created} (${JSON.stringify(committed.errors.slice(0, 3))})`);
       }
