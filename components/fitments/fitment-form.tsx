@@ -24,16 +24,28 @@ export type FitmentLineOption = {
 
 const EXTRA = "__extra__";
 
+type Props = { vehicleId: string; lines: FitmentLineOption[]; today: string; preselect?: string };
+
 /** Record what was fitted: a line of the vehicle's edition (its criteria offered as fields) or an extra. */
-export function FitmentForm({ vehicleId, lines, today, preselect }: { vehicleId: string; lines: FitmentLineOption[]; today: string; preselect?: string }) {
+export function FitmentForm(props: Props) {
   const { state, formAction, errorOf, valueOf } = useFormAction(recordFitmentAction);
-  const [choice, setChoice] = useState(preselect ?? lines.find((l) => l.statusWord === "Short")?.key ?? lines[0]?.key ?? EXTRA);
+  // A new form after every answer: its fields start from what was sent (after a refusal) or afresh.
+  const version = state.status === "error" ? JSON.stringify(state.values ?? {}) : state.status === "ok" ? JSON.stringify(state.data ?? {}) : "new";
+  return (
+    <form action={formAction} noValidate className="flex flex-col gap-4" aria-label="Record a fitment" key={version}>
+      <input type="hidden" name="vehicleId" value={props.vehicleId} />
+      <FormStatus state={state} testId="fitment-status" />
+      <FitmentFields {...props} errorOf={errorOf} valueOf={valueOf} />
+    </form>
+  );
+}
+
+function FitmentFields({ lines, today, preselect, errorOf, valueOf }: Props & { errorOf: (f: string) => string | undefined; valueOf: (f: string, fallback?: string | null) => string | undefined }) {
+  const [choice, setChoice] = useState(() => valueOf("lineKey", preselect ?? lines.find((l) => l.statusWord === "Short")?.key ?? lines[0]?.key ?? EXTRA)!);
   const line = lines.find((l) => l.key === choice);
   const categories = Object.keys(CATEGORY_LABELS).filter((c) => lines.some((l) => l.category === c)) as LineCategory[];
   return (
-    <form action={formAction} noValidate className="flex flex-col gap-4" aria-label="Record a fitment">
-      <input type="hidden" name="vehicleId" value={vehicleId} />
-      <FormStatus state={state} testId="fitment-status" />
+    <>
       <Field label="What was fitted" error={errorOf("lineKey")} required id="fitment-line">
         <Select name="lineKey" value={choice} onChange={(e) => setChoice(e.target.value)}>
           {categories.map((c) => (
@@ -106,6 +118,6 @@ export function FitmentForm({ vehicleId, lines, today, preselect }: { vehicleId:
       <div>
         <SubmitButton>Record fitment</SubmitButton>
       </div>
-    </form>
+    </>
   );
 }

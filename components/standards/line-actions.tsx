@@ -42,7 +42,7 @@ export function LineActions({ standardId, editionId, line, others }: { standardI
         </form>
       </div>
       {state.status === "error" && (
-        <div className="max-w-sm text-left">
+        <div className="w-72 text-left">
           <FormStatus state={state} testId={`delete-${line.code}-status`} />
         </div>
       )}

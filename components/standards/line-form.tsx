@@ -181,7 +181,7 @@ export function LineForm({ standardId, editionId, line, others, onDone }: LineFo
               <span aria-hidden="true" />
             )}
             <Field label="Unit" error={errorOf(`criteria.${i}.unit`)} id={`${prefix}-c${i}-unit`}>
-              <Input name={`criteria.${i}.unit`} value={row.unit} onChange={(e) => setRow(i, { unit: e.target.value })} placeholder="kg" />
+              <Input name={`criteria.${i}.unit`} value={row.unit} onChange={(e) => setRow(i, { unit: e.target.value })} />
             </Field>
             <input type="hidden" name={`criteria.${i}.label`} value={row.label} />
             <Button type="button" variant="ghost" onClick={() => setRows((rs) => rs.filter((_, k) => k !== i))} aria-label={`Remove criterion ${i + 1}`}>

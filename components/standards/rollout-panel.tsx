@@ -101,16 +101,15 @@ export function RolloutPanel({ standardId, editionId, editionNumber, vehicles }:
                   <Td>
                     {v.shortLines.length === 0 ? (
                       <span className="text-muted">None</span>
+                    ) : v.shortLines.length <= 6 ? (
+                      <ShortLines lines={v.shortLines} />
                     ) : (
-                      <ul className="list-none">
-                        {v.shortLines.map((l) => (
-                          <li key={l.key}>
-                            {l.code} {l.title}
-                            {l.missingQuantity > 1 ? ` × ${l.missingQuantity}` : ""}
-                            {l.already && <span className="text-muted"> (short already)</span>}
-                          </li>
-                        ))}
-                      </ul>
+                      <details>
+                        <summary className="cursor-pointer font-medium">
+                          {v.shortLines.length} lines{v.shortLines.every((l) => l.already) ? ", all short already" : ""}
+                        </summary>
+                        <ShortLines lines={v.shortLines} />
+                      </details>
                     )}
                   </Td>
                   <Td>{v.offSpecLines.length === 0 ? <span className="text-muted">None</span> : v.offSpecLines.map((l) => `${l.code} ${l.title}`).join("; ")}</Td>
@@ -151,5 +150,19 @@ export function RolloutPanel({ standardId, editionId, editionNumber, vehicles }:
       )}
       {confirmed && <FormStatus state={confirm.state} testId="rollout-confirm-status" />}
     </div>
+  );
+}
+
+function ShortLines({ lines }: { lines: { key: string; code: string; title: string; missingQuantity: number; already: boolean }[] }) {
+  return (
+    <ul className="list-none">
+      {lines.map((l) => (
+        <li key={l.key}>
+          {l.code} {l.title}
+          {l.missingQuantity > 1 ? ` × ${l.missingQuantity}` : ""}
+          {l.already && <span className="text-muted"> (short already)</span>}
+        </li>
+      ))}
+    </ul>
   );
 }

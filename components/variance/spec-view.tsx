@@ -102,6 +102,35 @@ export function VarianceLinesTable({ view }: { view: VehicleVarianceView }) {
   );
 }
 
+/** The same lines for a phone in the field: gaps first in large type, the lines that meet folded away. */
+export function VarianceLinesList({ view }: { view: VehicleVarianceView }) {
+  const open = view.lines.filter((l) => !["meets", "optional_absent", "concession"].includes(l.status));
+  const rest = view.lines.filter((l) => !open.includes(l));
+  const item = (l: Line) => (
+    <li key={l.lineId} className="flex flex-col gap-1 py-3" data-testid={`spec-line-${l.code}`} data-status={l.status}>
+      <LineStatusPill status={l.status} size="lg" />
+      <span className="text-base font-semibold">
+        {l.code} {l.title}
+      </span>
+      <span className="text-base text-muted">{detail(l)}</span>
+    </li>
+  );
+  return (
+    <Card>
+      <CardHeader title={open.length === 0 ? "Nothing missing" : `${open.length} ${open.length === 1 ? "line needs" : "lines need"} work`} description="Tell the fleet manager about anything that looks wrong." />
+      <CardBody>
+        {open.length > 0 && <ul className="divide-y divide-line">{open.map(item)}</ul>}
+        {rest.length > 0 && (
+          <details className="mt-2">
+            <summary className="min-h-12 cursor-pointer py-3 text-base font-semibold text-accent">Show the {rest.length} other lines</summary>
+            <ul className="divide-y divide-line">{rest.map(item)}</ul>
+          </details>
+        )}
+      </CardBody>
+    </Card>
+  );
+}
+
 /** The order the remaining work can be done in; blocked lines say what they wait for. */
 export function BuildOrderCard({ view }: { view: VehicleVarianceView }) {
   return (

@@ -19,18 +19,21 @@ const DAY_MS = 86_400_000;
 const id = (what: string) => z.string({ error: `${what} is required` }).trim().min(1, { error: `${what} is required` }).max(64);
 const NUMERIC = /^[+-]?(?:\d+(?:\.\d*)?|\.\d+)$/;
 
+function toDate(v: unknown): unknown {
+  if (v instanceof Date || typeof v === "number") return new Date(v);
+  if (typeof v !== "string") return v;
+  const t = v.trim();
+  if (t === "") return undefined;
+  return new Date(/^\d{4}-\d{2}-\d{2}$/.test(t) ? `${t}T00:00:00Z` : t);
+}
+
+const validDate = (what: string) =>
+  z.date({ error: `${what} must be a date` }).refine((d) => Number.isFinite(d.getTime()), { error: `${what} must be a date` });
+
 /** A date from a form ("2026-03-01"), an ISO time, epoch milliseconds or a Date. */
-const dateInput = (what: string) =>
-  z.preprocess(
-    (v) => {
-      if (v instanceof Date || typeof v === "number") return new Date(v);
-      if (typeof v !== "string") return v;
-      const t = v.trim();
-      if (t === "") return undefined;
-      return new Date(/^\d{4}-\d{2}-\d{2}$/.test(t) ? `${t}T00:00:00Z` : t);
-    },
-    z.date({ error: `${what} must be a date` }).refine((d) => Number.isFinite(d.getTime()), { error: `${what} must be a date` }),
-  );
+const dateInput = (what: string) => z.preprocess(toDate, validDate(what));
+/** The same, where a blank field means "none". */
+const optionalDate = (what: string) => z.preprocess(toDate, validDate(what).optional());
 
 const optionalNumber = (what: string, min: number, max: number) =>
   z.preprocess(
@@ -87,8 +90,8 @@ export const recordFitmentInputSchema = z.preprocess(
     xMm: optionalNumber("Position", -3000, 15000),
     zone: z.enum(ZONES, { error: `Zone must be one of ${ZONES.join(", ")}` }).nullable().default(null),
     massKind: z.enum(["constant", "variable"], { error: "Mass kind must be constant or variable" }).nullable().default(null),
-    fittedAt: dateInput("Fitted date").optional(),
-    expiresAt: dateInput("Expiry").optional(),
+    fittedAt: optionalDate("Fitted date"),
+    expiresAt: optionalDate("Expiry"),
   }),
 );
 

@@ -89,11 +89,7 @@ function criteriaFromFields(raw: Record<string, unknown>): unknown[] | undefined
 }
 
 /** Form or JSON → the JSON shape of a line; dollar text becomes cents (or an issue on standardCost). */
-export function normaliseLineInput(
-  raw: unknown,
-  ctx: { addIssue: (issue: { code: "custom"; path: string[]; message: string }) => void },
-  { fill }: { fill: boolean } = { fill: true },
-): unknown {
+export function normaliseLineInput(raw: unknown, { fill }: { fill: boolean } = { fill: true }): unknown {
   if (raw === null || typeof raw !== "object" || Array.isArray(raw)) return raw;
   const input = { ...(raw as Record<string, unknown>) };
   input.quantity = toNumber(input.quantity, undefined);
@@ -118,21 +114,24 @@ export function normaliseLineInput(
     const text = input.standardCost.trim();
     try {
       input.standardCostCents = text === "" ? 0 : parseMoneyToCents(text, "standardCost");
+      delete input.standardCost;
     } catch (error) {
       if (!(error instanceof InputError)) throw error;
-      ctx.addIssue({ code: "custom", path: ["standardCost"], message: "Enter the standard cost in dollars, such as 1,250.00" });
+      // Left in place, so `costText` below names it beside every other field's error.
+      input.standardCostCents = 0;
     }
-  }
-  delete input.standardCost;
+  } else delete input.standardCost;
   return input;
 }
 
 const id = (what: string) => z.string({ error: `${what} is required` }).trim().min(1, { error: `${what} is required` }).max(64);
+/** Dollar text that could not be read as an amount is left under this name, and refused here. */
+const costText = z.undefined({ error: "Enter the standard cost in dollars, such as 1,250.00" }).optional();
 
 /** A new line of a draft edition (the key is made up when not given, and then never changes). */
 export const addLineInputSchema = z.preprocess(
-  (raw, ctx) => {
-    const input = normaliseLineInput(raw, ctx);
+  (raw) => {
+    const input = normaliseLineInput(raw);
     if (input === null || typeof input !== "object") return input;
     const r = input as Record<string, unknown>;
     if (r.key === undefined || r.key === "") {
@@ -141,7 +140,7 @@ export const addLineInputSchema = z.preprocess(
     }
     return r;
   },
-  z.intersection(z.object({ editionId: id("The edition") }), editionLineInputSchema),
+  z.intersection(z.object({ editionId: id("The edition"), standardCost: costText }), editionLineInputSchema),
 );
 
 /**
@@ -150,12 +149,12 @@ export const addLineInputSchema = z.preprocess(
  * editions.
  */
 export const updateLineInputSchema = z.preprocess(
-  (raw, ctx) => {
+  (raw) => {
     const full = raw !== null && typeof raw === "object" && ["true", true, "on"].includes((raw as Record<string, unknown>).full as string);
-    const input = normaliseLineInput(raw, ctx, { fill: full });
+    const input = normaliseLineInput(raw, { fill: full });
     return input !== null && typeof input === "object" ? { ...(input as Record<string, unknown>), full } : input;
   },
-  z.looseObject({ editionId: id("The edition"), lineId: id("The line"), full: z.boolean().default(false) }),
+  z.looseObject({ editionId: id("The edition"), lineId: id("The line"), full: z.boolean().default(false), standardCost: costText }),
 );
 
 // ─── Reading ───────────────────────────────────────────────────────────────────
@@ -450,7 +449,7 @@ export const addLine = command({
   input: addLineInputSchema,
   permission: ["manage", "Standard"],
   run: async ({ user, input, tx, audit }) => {
-    const { editionId, ...line } = input;
+    const { editionId, standardCost: _cost, ...line } = input;
     const edition = await draftEdition(tx, user.orgId, editionId);
     await checkCodeFree(tx, edition.id, line.code);
     const existing = await loadEditionLines(tx, edition.id);
@@ -469,7 +468,7 @@ export const updateLine = command({
   input: updateLineInputSchema,
   permission: ["manage", "Standard"],
   run: async ({ user, input, tx, audit }) => {
-    const { editionId, lineId, full, ...given } = input;
+    const { editionId, lineId, full, standardCost: _cost, ...given } = input;
     const edition = await draftEdition(tx, user.orgId, editionId);
     const existing = await loadEditionLines(tx, edition.id);
     const before = existing.find((l) => l.id === lineId);
@@ -499,7 +498,8 @@ export const deleteLine = command({
     if (!line) throw notFound("That line");
     const dependents = existing.filter((l) => l.dependsOn.includes(line.id));
     if (dependents.length > 0) {
-      const names = dependents.map(label).join(", ");
+      // Name each dependent line: in full when there are one or two, by code when there are more.
+      const names = dependents.length <= 2 ? dependents.map(label).join(" and ") : `${dependents.length} lines (${dependents.map((d) => d.code).join(", ")})`;
       throw new AppError(
         "conflict",
         `${label(line)} cannot be deleted: ${names} ${dependents.length === 1 ? "depends" : "depend"} on it. Remove that dependency first.`,

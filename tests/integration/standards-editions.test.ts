@@ -115,6 +115,43 @@ describe("a new standard and its first draft", () => {
     expect(await database.$count(editionLines, eq(editionLines.editionId, editionId))).toBe(3);
   });
 
+  it("reads the line form's text fields: dollars to cents, criteria rows, ticked boxes", async () => {
+    const { status, json } = await addLine(editionId, {
+      code: "ST-01",
+      title: "Fridge slide",
+      category: "storage",
+      requirement: "must_fit",
+      quantity: "1",
+      massKg: "18.5",
+      xMm: "",
+      zone: "tub",
+      "criteria.0.attribute": "slideRatingKg",
+      "criteria.0.op": "between",
+      "criteria.0.value": "80",
+      "criteria.0.high": "120",
+      "criteria.0.unit": "kg",
+      "criteria.1.attribute": "",
+      "criteria.1.op": "gte",
+      "criteria.1.value": "",
+      evidenceNeeded: ["photo", "certificate"],
+      standardCost: "1,250.50",
+      checkable: "true",
+      expiryMonths: "",
+    });
+    expect(status).toBe(201);
+    const row = await database.query.editionLines.findFirst({ where: eq(editionLines.id, (json as { id: string }).id) });
+    // Money in integer cents: $1,250.50 → 125,050 c (Rigline rule).
+    expect(row).toMatchObject({ standardCostCents: 125_050, massKg: 18.5, xMm: null, zone: "tub", checkable: true, expiryMonths: null, evidenceNeeded: ["photo", "certificate"] });
+    expect(row?.criteria).toEqual([{ attribute: "slideRatingKg", op: "between", value: [80, 120], unit: "kg" }]);
+    await callRoute(deleteLineRoute, { user: manager, method: "DELETE", params: { id: editionId, lineId: row!.id } });
+  });
+
+  it("names every bad field of the form at once, the dollar amount among them", async () => {
+    const { status, json } = await addLine(editionId, { code: "", title: "Fridge slide", category: "storage", requirement: "must_fit", quantity: "1", massKg: "2", zone: "tub", standardCost: "12.345" });
+    expect(status).toBe(422);
+    expect(err(json).details.map((d) => d.field).sort()).toEqual(["code", "standardCost"]);
+  });
+
   it("refuses a dependency cycle, naming the lines, and saves nothing", async () => {
     const lines = await database.select().from(editionLines).where(eq(editionLines.editionId, editionId));
     const tyres = lines.find((l) => l.code === "TY-01")!;

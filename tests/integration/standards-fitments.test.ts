@@ -52,6 +52,17 @@ describe("recording what is fitted", () => {
     expect(fuses.failing).toEqual([expect.objectContaining({ attribute: "fuseRatingA", actual: 100 })]);
   });
 
+  it("takes the fitment form's text fields as sent: blank dates, measured values, the extra marker", async () => {
+    const vehicleId = await idOf("MH-005");
+    const line = await record(vehicleId, { lineKey: "dual-battery", quantity: "1", "attributes.capacityAh": "120", fittedAt: "2026-01-20", expiresAt: "" });
+    expect(line.status).toBe(201);
+    expect((line.json as { expiresAt: string | null }).expiresAt).toBeNull();
+    const extra = await record(vehicleId, { lineKey: "__extra__", label: "Dash camera", massKg: "", xMm: "", zone: "", massKind: "constant", quantity: "1", fittedAt: "", expiresAt: "" });
+    expect(extra.status).toBe(201);
+    // The auxiliary battery line needs an accepted photo: fitted and measured, it is unproven until then.
+    expect(lineOf(await varianceOf(vehicleId), "EL-01").status).toBe("unproven");
+  });
+
   it("a line's expiry is set from its expiry months when none is given", async () => {
     const vehicleId = await idOf("MH-005");
     const { json } = await record(vehicleId, { lineKey: "first-aid-kit", fittedAt: "2026-02-01" });

@@ -7,7 +7,7 @@ import { FitmentsTable } from "@/components/fitments/fitments-table";
 import { dateText } from "@/components/standards/labels";
 import { Caution, Card, CardBody, CardHeader, EmptyState, Table, TBody, Td, Th, THead, Tr } from "@/components/ui";
 import { VehicleVariancePill } from "@/components/variance/line-status";
-import { BuildOrderCard, CloseFigures, VarianceLinesTable, VarianceSummaryCounts } from "@/components/variance/spec-view";
+import { BuildOrderCard, CloseFigures, VarianceLinesList, VarianceLinesTable, VarianceSummaryCounts } from "@/components/variance/spec-view";
 import { db } from "@/db/client";
 import { loadEditionLines } from "@/db/standards";
 import { listFitments } from "@/lib/commands/fitments";
@@ -98,8 +98,8 @@ export default async function SpecCheckPage({ params }: { params: Promise<{ id: 
         </CardBody>
       </Card>
 
-      {view.lines.length > 0 && <VarianceLinesTable view={view} />}
-      {view.buildOrder.length > 0 && <BuildOrderCard view={view} />}
+      {view.lines.length > 0 && (deskRole ? <VarianceLinesTable view={view} /> : <VarianceLinesList view={view} />)}
+      {view.buildOrder.length > 0 && user.role !== "driver" && <BuildOrderCard view={view} />}
 
       {view.extras.length > 0 && (
         <Card>
