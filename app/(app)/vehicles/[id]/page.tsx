@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import type { ReactNode } from "react";
+import { VehicleReadinessPanel } from "@/components/readiness/readiness-panel";
 import { Button, Card, CardBody, CardHeader, Caution, Quantity, StatusPill } from "@/components/ui";
 import { GroundingActions } from "@/components/vehicles/grounding-actions";
 import { VinCheckDigitNote } from "@/components/vehicles/vin-note";
@@ -47,6 +48,7 @@ export default async function VehicleDetailsPage({ params }: { params: Promise<{
           Grounded: {vehicle.groundedReason ?? "no reason recorded"}. Do not drive until a manager returns it to service.
         </p>
       )}
+      <VehicleReadinessPanel actor={user} vehicleId={vehicle.id} />
       {(canEdit || canGround) && (
         <div className="flex flex-wrap gap-3">
           {canEdit && (
