@@ -4,6 +4,7 @@ import type { VehicleVarianceStatus } from "@/lib/variance";
 import type { DbOrTx } from "./client";
 import { depots, editions, platforms, standards, users, vehicleDrivers, vehicles, type VehicleState } from "./schema";
 import { vehicleScope } from "./scope";
+import { readinessByVehicle } from "./readiness";
 import { varianceStatusByVehicle } from "./variance";
 
 export async function countVehiclesByState(db: DbOrTx, actor: Actor) {
@@ -67,6 +68,8 @@ export const VEHICLE_SORTS = ["fleetNumber", "registration", "platform", "depot"
 export type VehicleSort = (typeof VEHICLE_SORTS)[number];
 export const VARIANCE_FILTERS = ["meets_standard", "gaps", "no_edition"] as const;
 export type VarianceFilterValue = (typeof VARIANCE_FILTERS)[number];
+export const READINESS_FILTERS = ["ready", "limited", "not_ready"] as const;
+export type ReadinessFilterValue = (typeof READINESS_FILTERS)[number];
 
 export type VehicleListParams = {
   page: number;
@@ -79,6 +82,7 @@ export type VehicleListParams = {
   editionId?: string;
   standardId?: string;
   variance?: VarianceFilterValue;
+  readiness?: ReadinessFilterValue;
   q?: string;
 };
 
@@ -222,7 +226,7 @@ export async function listVehiclesPage(db: DbOrTx, actor: Actor, p: VehicleListP
   let statuses: Map<string, VehicleVarianceStatus>;
   let page = p.page;
 
-  if (p.variance === "meets_standard" || p.variance === "gaps") {
+  if (p.variance === "meets_standard" || p.variance === "gaps" || p.readiness) {
     const candidates = await db
       .select({ id: vehicles.id })
       .from(vehicles)
@@ -230,8 +234,14 @@ export async function listVehiclesPage(db: DbOrTx, actor: Actor, p: VehicleListP
       .leftJoin(depots, eq(depots.id, vehicles.depotId))
       .where(where)
       .orderBy(...order);
-    statuses = await varianceStatusByVehicle(db, actor, candidates.map((c) => c.id), now);
-    const matched = candidates.filter((c) => statuses.get(c.id) === p.variance).map((c) => c.id);
+    const candidateIds = candidates.map((c) => c.id);
+    statuses = await varianceStatusByVehicle(db, actor, candidateIds, now);
+    // Trip readiness (variance, defects, grounding, expiries) is judged for the candidates in one batch too.
+    const readiness = p.readiness ? await readinessByVehicle(db, actor, candidateIds, now) : null;
+    const matched = candidates
+      .filter((c) => (p.variance === "meets_standard" || p.variance === "gaps" ? statuses.get(c.id) === p.variance : true))
+      .filter((c) => (readiness ? readiness.get(c.id)?.state === p.readiness : true))
+      .map((c) => c.id);
     total = matched.length;
     page = clampPage(page, total, p.pageSize);
     const ids = matched.slice((page - 1) * p.pageSize, page * p.pageSize);

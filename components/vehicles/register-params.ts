@@ -6,7 +6,7 @@
 export const REGISTER_SORTS = ["fleetNumber", "registration", "platform", "depot", "state", "odometerKm", "updatedAt"] as const;
 export type RegisterSort = (typeof REGISTER_SORTS)[number];
 
-export const REGISTER_FILTERS = ["depotId", "platformId", "state", "editionId", "standardId", "variance"] as const;
+export const REGISTER_FILTERS = ["depotId", "platformId", "state", "editionId", "standardId", "variance", "readiness"] as const;
 export type RegisterFilter = (typeof REGISTER_FILTERS)[number];
 
 /** Every column the register can show, in display order; fleet number is always shown. */

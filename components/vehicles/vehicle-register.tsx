@@ -509,6 +509,14 @@ export function VehicleRegister({
                 ))}
               </Select>
             </Field>
+            <Field label="Trip readiness">
+              <Select value={params.filters.readiness ?? ""} onChange={setFilter("readiness")}>
+                <option value="">Any</option>
+                <option value="ready">Ready for remote duty</option>
+                <option value="limited">Limited (town and graded roads)</option>
+                <option value="not_ready">Not ready</option>
+              </Select>
+            </Field>
           </>
         )}
       </search>

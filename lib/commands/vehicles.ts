@@ -9,6 +9,7 @@ import {
   findVehicle,
   listVehiclesPage,
   registerFilterOptions,
+  READINESS_FILTERS,
   VARIANCE_FILTERS,
   VEHICLE_SORTS,
   type VehicleListParams,
@@ -145,6 +146,7 @@ export const vehicleListSchema = z.object({
   standardId: z.preprocess(blankToNull, id.nullable()).transform((v) => v ?? undefined).optional(),
   state: z.preprocess(blankToNull, z.enum(VEHICLE_STATES, { error: `state is one of ${VEHICLE_STATES.join(", ")}` }).nullable()).transform((v) => v ?? undefined).optional(),
   variance: z.preprocess(blankToNull, z.enum(VARIANCE_FILTERS, { error: `variance is one of ${VARIANCE_FILTERS.join(", ")}` }).nullable()).transform((v) => v ?? undefined).optional(),
+  readiness: z.preprocess(blankToNull, z.enum(READINESS_FILTERS, { error: `readiness is one of ${READINESS_FILTERS.join(", ")}` }).nullable()).transform((v) => v ?? undefined).optional(),
   q: z.preprocess(blankToNull, z.string().trim().max(100, { error: "search is at most 100 characters" }).nullable()).transform((v) => v ?? undefined).optional(),
 });
 
