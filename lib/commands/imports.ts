@@ -1,6 +1,7 @@
 import "server-only";
 import { and, eq, sql } from "drizzle-orm";
 import { z } from "zod";
+import { insertMany } from "@/db/bulk-insert";
 import { db, type Tx } from "@/db/client";
 import {
   findImport,
@@ -384,12 +385,6 @@ function analyse(upload: PreparedUpload, checked: CheckedUpload, register: Regis
 
 const dateOf = (iso: string | null) => (iso === null ? null : new Date(`${iso}T00:00:00.000Z`));
 
-function chunks<T>(items: readonly T[], size: number): T[][] {
-  const out: T[][] = [];
-  for (let at = 0; at < items.length; at += size) out.push(items.slice(at, at + size));
-  return out;
-}
-
 type AuditRow = typeof auditEntries.$inferInsert;
 
 async function writePlan(
@@ -458,18 +453,15 @@ async function writePlan(
       notes: v.notes,
     });
   }
-  for (const batch of chunks(creates, 100)) {
-    const inserted = await tx
-      .insert(vehicles)
-      .values(batch.map(({ rowNumber: _row, ...values }) => values))
-      .returning({ id: vehicles.id, fleetNumber: vehicles.fleetNumber });
-    inserted.forEach((row, at) => {
-      const source = batch[at]!;
-      vehicleIds.set(source.rowNumber, row.id);
-      const { rowNumber: _row, orgId: _org, ...after } = source;
-      auditOf({ action: "vehicle.create", entityType: "vehicle", entityId: row.id, before: null, after });
-    });
-  }
+  // Ids are made here (as the schema's default would) so the audit rows can name them without a read back.
+  const createdRows = creates.map(({ rowNumber, ...values }) => {
+    const row = { ...values, id: crypto.randomUUID() };
+    vehicleIds.set(rowNumber, row.id);
+    const { orgId: _org, ...after } = values;
+    auditOf({ action: "vehicle.create", entityType: "vehicle", entityId: row.id, before: null, after });
+    return row;
+  });
+  await insertMany(tx, vehicles, createdRows);
 
   for (const planned of analysis.plan.rows) {
     if (planned.action === "unchanged") vehicleIds.set(planned.rowNumber, String(planned.vehicleId));
@@ -539,7 +531,7 @@ async function writePlan(
     });
   }
 
-  for (const batch of chunks(auditRows, 200)) await tx.insert(auditEntries).values(batch);
+  await insertMany(tx, auditEntries, auditRows);
   return vehicleIds;
 }
 
