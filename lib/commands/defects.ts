@@ -410,13 +410,21 @@ export const readDefectPhoto = query({
   input: z.object({ id: idField, photoId: idField }),
   permission: ["read", "Defect"],
   run: async ({ user, input }) => {
-    const photo = await findPhoto(db(), user, { defectId: input.id }, input.photoId);
-    if (!photo) throw notFound("That photo");
-    const file = await storage().get(photo.storageKey);
-    if (!file) throw notFound("That photo's file");
-    return { bytes: file.bytes, contentType: photo.contentType, filename: photo.filename };
+    return readPhoto(user, { defectId: input.id }, input.photoId);
   },
 });
+
+/**
+ * One photo of a defect or of a pre-trip check with its bytes, found through the owner's scope
+ * (`findPhoto`): a photo the actor may not see, or whose file is gone, is "not found".
+ */
+export async function readPhoto(user: SignedIn, owner: Parameters<typeof findPhoto>[2], photoId: string) {
+  const photo = await findPhoto(db(), user, owner, photoId);
+  if (!photo) throw notFound("That photo");
+  const file = await storage().get(photo.storageKey);
+  if (!file) throw notFound("That photo's file");
+  return { bytes: file.bytes, contentType: photo.contentType, filename: photo.filename };
+}
 
 // ─── Triage ─────────────────────────────────────────────────────────────────────
 
