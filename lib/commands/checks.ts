@@ -7,8 +7,7 @@ import { buildChecklist, checkAnswers, checkSummary, preTripCheckSchema } from "
 import { InputError } from "@/lib/errors";
 import { notFound } from "@/lib/server/errors";
 import { command, execute, query } from "@/lib/server/operation";
-import { AlreadyRecorded, defectWrites, readPhoto, reportedTime, sameReportOrConflict, storePhotos, type StoredPhoto } from "./defects";
-import { oneAtATime } from "./jobs";
+import { AlreadyRecorded, readPhoto, reportedTime, sameReportOrConflict, storePhotos, type StoredPhoto } from "./defects";
 
 /** At most this many photos on one item, and on one check. */
 export const MAX_PHOTOS_PER_ITEM = 3;
@@ -154,7 +153,7 @@ export const submitCheck = query({
       for (const p of await storePhotos(user.orgId, list, `photos.${itemKey}`)) storedPhotos.push({ ...p, itemKey });
     }
     try {
-      return { check: await oneAtATime(defectWrites(user.orgId), () => execute(recordCheck, user, { ...check, storedPhotos })), created: true };
+      return { check: await execute(recordCheck, user, { ...check, storedPhotos }), created: true };
     } catch (error) {
       if (!(error instanceof AlreadyRecorded)) throw error;
       return { check: toSummary(error.record as typeof preTripChecks.$inferSelect), created: false };
