@@ -1,13 +1,15 @@
 "use client";
 
-import { useRef, useState } from "react";
+import { useState } from "react";
 import { Button, Checkbox } from "@/components/ui";
-import { CalculatorCard } from "./calculator-card";
 import { AxleLoadsResult } from "./axle-loads-result";
+import { CalculatorCard } from "./calculator-card";
 import { NumberField, TextField } from "./fields";
 import { numberOrText } from "./numbers";
+import { RemoveRowButton } from "./parts";
 import type { AxleLoadsResponse } from "./types";
 import { useCalc } from "./use-calc";
+import { useRows } from "./use-rows";
 
 type ItemRow = { key: number; label: string; massKg: string; xMm: string };
 
@@ -48,22 +50,19 @@ export function axleLoadsBody(values: Record<Key, string>, items: ReadonlyArray<
 
 export function AxleLoadsCalculator() {
   const calc = useCalc<AxleLoadsResponse>("/api/calc/axle-loads");
-  const nextKey = useRef(START_ITEMS.length);
   const [values, setValues] = useState<Record<Key, string>>(START);
-  const [items, setItems] = useState<ItemRow[]>(() => START_ITEMS.map((item, key) => ({ ...item, key })));
+  const items = useRows<ItemRow>(START_ITEMS, { label: "", massKg: "", xMm: "" });
   const [towing, setTowing] = useState(false);
   const [submittedGcm, setSubmittedGcm] = useState<number | undefined>(undefined);
 
   const set = (k: Key) => (value: string) => setValues((v) => ({ ...v, [k]: value }));
-  const setItem = (key: number, part: "label" | "massKg" | "xMm") => (value: string) =>
-    setItems((rows) => rows.map((r) => (r.key === key ? { ...r, [part]: value } : r)));
   const shown = (field: string) =>
     STATIC_FIELDS.has(field) ||
     (towing && (field === "trailer.atmKg" || field === "trailer.towballKg")) ||
     /^items\.\d+\.(label|massKg|xMm)$/.test(field);
 
   function submit() {
-    const body = axleLoadsBody(values, items, towing);
+    const body = axleLoadsBody(values, items.rows, towing);
     setSubmittedGcm(typeof body.ratings.gcmKg === "number" ? body.ratings.gcmKg : undefined);
     calc.run(body);
   }
@@ -104,14 +103,14 @@ export function AxleLoadsCalculator() {
           Position is the distance behind the front axle centre line; negative is ahead of it. Past the rear axle an item takes load off the
           front.
         </p>
-        {items.map((item, i) => (
+        {items.rows.map((item, i) => (
           <div key={item.key} className="grid grid-cols-2 items-start gap-3 rounded-md border border-line p-3 sm:grid-cols-[1fr_8rem_9rem_auto]">
             <TextField
               name={`items.${i}.label`}
               label={`Item ${i + 1}`}
               className="col-span-2 sm:col-span-1"
               value={item.label}
-              onChange={setItem(item.key, "label")}
+              onChange={items.update(item.key, "label")}
               error={calc.errorOf(`items.${i}.label`)}
             />
             <NumberField
@@ -119,7 +118,7 @@ export function AxleLoadsCalculator() {
               label="Mass"
               unit="kg"
               value={item.massKg}
-              onChange={setItem(item.key, "massKg")}
+              onChange={items.update(item.key, "massKg")}
               error={calc.errorOf(`items.${i}.massKg`)}
               required
             />
@@ -128,27 +127,19 @@ export function AxleLoadsCalculator() {
               label="Position"
               unit="mm"
               value={item.xMm}
-              onChange={setItem(item.key, "xMm")}
+              onChange={items.update(item.key, "xMm")}
               error={calc.errorOf(`items.${i}.xMm`)}
               required
             />
-            <Button
-              type="button"
-              variant="ghost"
+            <RemoveRowButton
               className="col-span-2 sm:col-span-1 sm:mt-7"
-              onClick={() => setItems((rows) => rows.filter((r) => r.key !== item.key))}
-              aria-label={`Remove item ${i + 1}${item.label ? ` (${item.label})` : ""}`}
-            >
-              Remove
-            </Button>
+              onRemove={() => items.remove(item.key)}
+              label={`Remove item ${i + 1}${item.label ? ` (${item.label})` : ""}`}
+            />
           </div>
         ))}
         <div>
-          <Button
-            type="button"
-            variant="secondary"
-            onClick={() => setItems((rows) => [...rows, { key: nextKey.current++, label: "", massKg: "", xMm: "" }])}
-          >
+          <Button type="button" variant="secondary" onClick={items.add}>
             Add an item
           </Button>
         </div>

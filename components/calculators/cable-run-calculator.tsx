@@ -2,8 +2,8 @@
 
 import { useState } from "react";
 import { conductorSizes, MAX_DROP_PCT_BY_CIRCUIT } from "@/lib/electrical";
-import { CalculatorCard } from "./calculator-card";
 import { CableRunResult } from "./cable-run-result";
+import { CalculatorCard } from "./calculator-card";
 import { ChoiceField, NumberField } from "./fields";
 import { numberOrText } from "./numbers";
 import type { CableRunResponse } from "./types";

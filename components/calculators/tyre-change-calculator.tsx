@@ -1,11 +1,11 @@
 "use client";
 
 import { useState } from "react";
+import { CalculatorCard } from "./calculator-card";
 import { ChoiceField, NumberField, TextField } from "./fields";
 import { numberOrText } from "./numbers";
-import { CalculatorCard } from "./calculator-card";
-import { TyreChangeResult } from "./tyre-change-result";
 import type { RuleSetOption, TyreChangeResponse } from "./types";
+import { TyreChangeResult } from "./tyre-change-result";
 import { useCalc } from "./use-calc";
 
 const FIELDS = new Set(["from", "to", "speedoReadsHighPct", "ruleSetId", "suspensionLiftMm"]);
