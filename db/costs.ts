@@ -3,7 +3,7 @@ import type { LedgerEntry } from "@/lib/exports";
 import type { Actor } from "@/lib/permissions";
 import type { DbOrTx } from "./client";
 import { fleetReadinessCounts } from "./readiness";
-import { budgets, costs, depots, editions, fleetSnapshots, jobs, platforms, standards, vehicles } from "./schema";
+import { budgets, costs, depots, editions, fleetSnapshots, jobs, organisations, platforms, standards, vehicles } from "./schema";
 import { loadFleetVariance } from "./variance";
 
 /**
@@ -315,6 +315,30 @@ export async function fleetFiguresNow(db: DbOrTx, orgId: string, now: Date): Pro
   };
 }
 
+/**
+ * Takes today's figures for the organisation unless today's are already recorded; true when it
+ * took them. Safe to call any number of times a day, from the scheduler and from a page visit.
+ */
+export async function recordTodaysSnapshotOnce(db: DbOrTx, orgId: string, now = new Date()): Promise<boolean> {
+  const day = now.toISOString().slice(0, 10);
+  const [held] = await db
+    .select({ day: fleetSnapshots.day })
+    .from(fleetSnapshots)
+    .where(and(eq(fleetSnapshots.orgId, orgId), eq(fleetSnapshots.day, day)))
+    .limit(1);
+  if (held) return false;
+  await recordFleetSnapshot(db, orgId, await fleetFiguresNow(db, orgId, now));
+  return true;
+}
+
+/** Today's figures for every organisation that has none yet; the number of snapshots taken. */
+export async function recordTodaysSnapshots(db: DbOrTx, now = new Date()): Promise<number> {
+  const orgs = await db.select({ id: organisations.id }).from(organisations).orderBy(asc(organisations.id));
+  let taken = 0;
+  for (const org of orgs) if (await recordTodaysSnapshotOnce(db, org.id, now)) taken++;
+  return taken;
+}
+
 /** Records today's figures for the organisation (replacing any taken earlier today). */
 export async function recordTodaysSnapshot(db: DbOrTx, orgId: string, now = new Date()): Promise<FleetSnapshot> {
   const figures = await fleetFiguresNow(db, orgId, now);
@@ -338,4 +362,71 @@ export async function varianceNames(db: DbOrTx, actor: Actor) {
     platform: new Map(platformRows.map((p) => [p.id, [p.make, p.model, p.variant].filter(Boolean).join(" ")])),
     edition: new Map(editionRows.map((e) => [e.id, `${e.standard}, edition ${e.number}`])),
   };
+}
+
+// ─── The daily snapshot, taken in the server process ───────────────────────────
+
+export type DailyOptions = {
+  /** Minutes after midnight UTC (the day a snapshot is filed under) at which the task runs. */
+  atUtcMinute?: number;
+  /** Wait after start-up before the first (catch-up) run, so the server answers first. */
+  firstRunAfterMs?: number;
+  now?: () => Date;
+  onError?: (error: unknown) => void;
+};
+
+/**
+ * Runs `task` once soon after start-up, then every day at `atUtcMinute` past midnight UTC. The
+ * next run is worked out from the clock each time (no drift); a failed run is reported and the
+ * schedule goes on. Returns the function that stops it.
+ */
+export function scheduleDaily(task: () => Promise<unknown>, options: DailyOptions = {}): () => void {
+  const { atUtcMinute = 5, firstRunAfterMs = 10_000, now = () => new Date(), onError = (e) => console.error("[rigline] daily task", e) } = options;
+  let timer: ReturnType<typeof setTimeout> | undefined;
+  let stopped = false;
+
+  const untilNext = () => {
+    const at = now();
+    let next = Date.UTC(at.getUTCFullYear(), at.getUTCMonth(), at.getUTCDate()) + atUtcMinute * 60_000;
+    if (next <= at.getTime()) next += DAY_MS;
+    return next - at.getTime();
+  };
+  const arm = (ms: number) => {
+    if (stopped) return;
+    timer = setTimeout(run, ms);
+    timer.unref?.();
+  };
+  // The next run is armed only once this one has finished, so runs never overlap.
+  async function run() {
+    try {
+      await task();
+    } catch (error) {
+      onError(error);
+    }
+    arm(untilNext());
+  }
+
+  arm(firstRunAfterMs);
+  return () => {
+    stopped = true;
+    if (timer) clearTimeout(timer);
+  };
+}
+
+const globalForSnapshots = globalThis as unknown as { riglineSnapshots?: () => void };
+
+/**
+ * Starts the daily fleet snapshot for every organisation (once per process; a second call does
+ * nothing). The trends page still takes the day's figures on a visit if none are recorded yet.
+ */
+export function startSnapshotScheduler(db: () => DbOrTx, options: DailyOptions = {}): void {
+  if (globalForSnapshots.riglineSnapshots) return;
+  const now = options.now ?? (() => new Date());
+  globalForSnapshots.riglineSnapshots = scheduleDaily(() => recordTodaysSnapshots(db(), now()), options);
+}
+
+/** Stops the daily snapshot (tests). */
+export function stopSnapshotScheduler(): void {
+  globalForSnapshots.riglineSnapshots?.();
+  delete globalForSnapshots.riglineSnapshots;
 }

@@ -14,7 +14,19 @@ import {
   uniqueIndex,
   type AnySQLiteColumn,
 } from "drizzle-orm/sqlite-core";
+import { DEFECT_SEVERITIES, DEFECT_STATES } from "@/lib/defects/vocabulary";
+import { COST_KINDS, COST_SOURCES } from "@/lib/exports/labels";
+import { RECORDED_DECISIONS } from "@/lib/jobs/decisions";
+import { EVIDENCE_STATES } from "@/lib/jobs/evidence-states";
+import { JOB_STATES } from "@/lib/jobs/job-states";
+import { QUOTE_STATES } from "@/lib/jobs/quote-states";
 import { ROLES } from "@/lib/permissions/roles";
+import { VEHICLE_STATES, type VehicleState } from "@/lib/readiness/readiness";
+import { EVIDENCE_KINDS, LINE_CATEGORIES, MASS_KINDS, REQUIREMENTS, ZONES } from "@/lib/variance/types";
+
+// The value lists live in the pure modules (one source of truth); re-exported for the data layer.
+export { DEFECT_SEVERITIES, DEFECT_STATES, EVIDENCE_KINDS, JOB_STATES, LINE_CATEGORIES, QUOTE_STATES, REQUIREMENTS, VEHICLE_STATES, ZONES };
+export type { VehicleState };
 
 const id = () =>
   text("id")
@@ -203,9 +215,6 @@ export const platforms = sqliteTable(
   (t) => [uniqueIndex("platforms_org_name").on(t.orgId, t.make, t.model, t.variant)],
 );
 
-export const VEHICLE_STATES = ["in_service", "in_fitout", "grounded", "retired"] as const;
-export type VehicleState = (typeof VEHICLE_STATES)[number];
-
 export const vehicles = sqliteTable(
   "vehicles",
   {
@@ -295,28 +304,6 @@ export const editions = sqliteTable(
   (t) => [uniqueIndex("editions_standard_number").on(t.standardId, t.number)],
 );
 
-export const LINE_CATEGORIES = [
-  "tyres",
-  "suspension",
-  "steering_driveline",
-  "protection",
-  "recovery",
-  "water_dust",
-  "electrical",
-  "communications",
-  "storage",
-  "lighting_roof",
-  "safety",
-  "engineering",
-] as const;
-export const REQUIREMENTS = ["must_fit", "may_fit", "must_not_fit"] as const;
-export const ZONES = ["front", "cab", "tub", "roof", "rear_overhang", "towbar"] as const;
-export const EVIDENCE_KINDS = [
-  "photo",
-  "certificate",
-  "weighbridge_ticket",
-  "engineering_signoff",
-] as const;
 
 export type CriterionRow = {
   attribute: string;
@@ -344,7 +331,7 @@ export const editionLines = sqliteTable(
     massKg: real("mass_kg").notNull().default(0),
     xMm: real("x_mm"),
     zone: text("zone", { enum: ZONES }),
-    massKind: text("mass_kind", { enum: ["constant", "variable"] })
+    massKind: text("mass_kind", { enum: MASS_KINDS })
       .notNull()
       .default("constant"),
     criteria: json<CriterionRow[]>("criteria").notNull().default(sql`'[]'`),
@@ -391,7 +378,7 @@ export const fitments = sqliteTable(
     massKg: real("mass_kg"),
     xMm: real("x_mm"),
     zone: text("zone", { enum: ZONES }),
-    massKind: text("mass_kind", { enum: ["constant", "variable"] }),
+    massKind: text("mass_kind", { enum: MASS_KINDS }),
     fittedAt: integer("fitted_at", { mode: "timestamp_ms" }).notNull(),
     removedAt: integer("removed_at", { mode: "timestamp_ms" }),
     expiresAt: integer("expires_at", { mode: "timestamp_ms" }),
@@ -433,7 +420,7 @@ export const plannedItems = sqliteTable(
     massKg: real("mass_kg").notNull(),
     xMm: real("x_mm"),
     zone: text("zone", { enum: ZONES }),
-    massKind: text("mass_kind", { enum: ["constant", "variable"] })
+    massKind: text("mass_kind", { enum: MASS_KINDS })
       .notNull()
       .default("constant"),
     createdBy: text("created_by").references(() => users.id),
@@ -465,16 +452,6 @@ export const weighbridgeTickets = sqliteTable(
 
 // ─── Jobs, quotes, decisions ───────────────────────────────────────────────────
 
-export const JOB_STATES = [
-  "open",
-  "quoting",
-  "awarded",
-  "in_workshop",
-  "evidence_lodged",
-  "signed_off",
-  "closed",
-  "cancelled",
-] as const;
 
 export const jobs = sqliteTable(
   "jobs",
@@ -488,7 +465,7 @@ export const jobs = sqliteTable(
     title: text("title").notNull(),
     state: text("state", { enum: JOB_STATES }).notNull().default("open"),
     dueAt: integer("due_at", { mode: "timestamp_ms" }),
-    costKind: text("cost_kind", { enum: ["capital", "operating"] })
+    costKind: text("cost_kind", { enum: COST_KINDS })
       .notNull()
       .default("capital"),
     awardedFirmId: text("awarded_firm_id").references(() => contractorFirms.id),
@@ -535,15 +512,6 @@ export const jobOffers = sqliteTable(
   (t) => [primaryKey({ columns: [t.jobId, t.firmId] }), index("job_offers_firm").on(t.firmId)],
 );
 
-export const QUOTE_STATES = [
-  "draft",
-  "submitted",
-  "returned",
-  "awaiting_finance",
-  "accepted",
-  "declined",
-  "withdrawn",
-] as const;
 
 export const quotes = sqliteTable(
   "quotes",
@@ -622,9 +590,7 @@ export const decisions = sqliteTable(
     quoteId: text("quote_id")
       .notNull()
       .references(() => quotes.id, { onDelete: "cascade" }),
-    decision: text("decision", {
-      enum: ["accept", "decline", "return", "finance_approve", "finance_decline"],
-    }).notNull(),
+    decision: text("decision", { enum: RECORDED_DECISIONS }).notNull(),
     reason: text("reason"),
     quoteVersion: integer("quote_version").notNull(),
     decidedBy: text("decided_by")
@@ -654,7 +620,7 @@ export const evidence = sqliteTable(
     fitmentId: text("fitment_id").references(() => fitments.id, { onDelete: "set null" }),
     lineKey: text("line_key"),
     kind: text("kind", { enum: EVIDENCE_KINDS }).notNull(),
-    status: text("status", { enum: ["lodged", "accepted", "rejected"] })
+    status: text("status", { enum: EVIDENCE_STATES })
       .notNull()
       .default("lodged"),
     filename: text("filename").notNull(),
@@ -671,15 +637,6 @@ export const evidence = sqliteTable(
   (t) => [index("evidence_job").on(t.jobId), index("evidence_defect").on(t.defectId)],
 );
 
-export const DEFECT_SEVERITIES = ["stop", "before_next_trip", "watch"] as const;
-export const DEFECT_STATES = [
-  "reported",
-  "triaged",
-  "in_repair",
-  "resolved",
-  "closed",
-  "merged",
-] as const;
 
 export const defects = sqliteTable(
   "defects",
@@ -761,11 +718,11 @@ export const costs = sqliteTable(
     costCentre: text("cost_centre").notNull(),
     depotId: text("depot_id").references(() => depots.id, { onDelete: "set null" }),
     category: text("category", { enum: LINE_CATEGORIES }).notNull(),
-    kind: text("kind", { enum: ["capital", "operating"] }).notNull(),
+    kind: text("kind", { enum: COST_KINDS }).notNull(),
     amountExGstCents: integer("amount_ex_gst_cents").notNull(),
     gstCents: integer("gst_cents").notNull(),
     incurredOn: integer("incurred_on", { mode: "timestamp_ms" }).notNull(),
-    source: text("source", { enum: ["job", "manual", "adjustment"] }).notNull(),
+    source: text("source", { enum: COST_SOURCES }).notNull(),
     jobId: text("job_id").references(() => jobs.id, { onDelete: "set null" }),
     /** One booking per accepted quote, enforced by the database. */
     quoteId: text("quote_id")

@@ -1,13 +1,15 @@
 "use client";
 
-import { useRef, useState, type FormEvent } from "react";
-import { Button, Card, CardBody, CardHeader, Checkbox } from "@/components/ui";
+import { useState } from "react";
+import { Button, Checkbox } from "@/components/ui";
 import { AxleLoadsResult } from "./axle-loads-result";
+import { CalculatorCard } from "./calculator-card";
 import { NumberField, TextField } from "./fields";
 import { numberOrText } from "./numbers";
-import { CalcFormMessage } from "./parts";
+import { RemoveRowButton } from "./parts";
 import type { AxleLoadsResponse } from "./types";
 import { useCalc } from "./use-calc";
+import { useRows } from "./use-rows";
 
 type ItemRow = { key: number; label: string; massKg: string; xMm: string };
 
@@ -48,23 +50,19 @@ export function axleLoadsBody(values: Record<Key, string>, items: ReadonlyArray<
 
 export function AxleLoadsCalculator() {
   const calc = useCalc<AxleLoadsResponse>("/api/calc/axle-loads");
-  const nextKey = useRef(START_ITEMS.length);
   const [values, setValues] = useState<Record<Key, string>>(START);
-  const [items, setItems] = useState<ItemRow[]>(() => START_ITEMS.map((item, key) => ({ ...item, key })));
+  const items = useRows<ItemRow>(START_ITEMS, { label: "", massKg: "", xMm: "" });
   const [towing, setTowing] = useState(false);
   const [submittedGcm, setSubmittedGcm] = useState<number | undefined>(undefined);
 
   const set = (k: Key) => (value: string) => setValues((v) => ({ ...v, [k]: value }));
-  const setItem = (key: number, part: "label" | "massKg" | "xMm") => (value: string) =>
-    setItems((rows) => rows.map((r) => (r.key === key ? { ...r, [part]: value } : r)));
   const shown = (field: string) =>
     STATIC_FIELDS.has(field) ||
     (towing && (field === "trailer.atmKg" || field === "trailer.towballKg")) ||
     /^items\.\d+\.(label|massKg|xMm)$/.test(field);
 
-  function submit(event: FormEvent) {
-    event.preventDefault();
-    const body = axleLoadsBody(values, items, towing);
+  function submit() {
+    const body = axleLoadsBody(values, items.rows, towing);
     setSubmittedGcm(typeof body.ratings.gcmKg === "number" ? body.ratings.gcmKg : undefined);
     calc.run(body);
   }
@@ -74,113 +72,95 @@ export function AxleLoadsCalculator() {
   );
 
   return (
-    <Card id="axle-loads">
-      <CardHeader
-        title="Axle loads"
-        description="What the fitted items and a trailer's towball put on each axle, against the maker's ratings. Example figures are filled in: replace them with your vehicle's."
-      />
-      <CardBody>
-        <form onSubmit={submit} noValidate className="flex flex-col gap-5" aria-label="Axle loads">
-          <fieldset className="grid gap-4 sm:grid-cols-3">
-            <legend className="mb-2 text-sm font-semibold text-ink">Vehicle before the items</legend>
-            {num("wheelbaseMm", "Wheelbase", "mm", { required: true })}
-            {num("base.frontKg", "Front axle load", "kg", { required: true, hint: "Kerb, weighed, or as it stands" })}
-            {num("base.rearKg", "Rear axle load", "kg", { required: true })}
-          </fieldset>
+    <CalculatorCard
+      id="axle-loads"
+      title="Axle loads"
+      description="What the fitted items and a trailer's towball put on each axle, against the maker's ratings. Example figures are filled in: replace them with your vehicle's."
+      calc={calc}
+      shown={shown}
+      submitLabel="Work out axle loads"
+      onSubmit={submit}
+      result={(r) => <AxleLoadsResult result={r} gcmRatingKg={submittedGcm} />}
+    >
+      <fieldset className="grid gap-4 sm:grid-cols-3">
+        <legend className="mb-2 text-sm font-semibold text-ink">Vehicle before the items</legend>
+        {num("wheelbaseMm", "Wheelbase", "mm", { required: true })}
+        {num("base.frontKg", "Front axle load", "kg", { required: true, hint: "Kerb, weighed, or as it stands" })}
+        {num("base.rearKg", "Rear axle load", "kg", { required: true })}
+      </fieldset>
 
-          <fieldset className="grid gap-4 sm:grid-cols-4">
-            <legend className="mb-2 text-sm font-semibold text-ink">Maker&apos;s ratings</legend>
-            {num("ratings.frontKg", "Front axle", "kg", { required: true })}
-            {num("ratings.rearKg", "Rear axle", "kg", { required: true })}
-            {num("ratings.gvmKg", "GVM", "kg", { required: true })}
-            {num("ratings.gcmKg", "GCM", "kg", { hint: "Leave empty if not rated" })}
-          </fieldset>
+      <fieldset className="grid gap-4 sm:grid-cols-4">
+        <legend className="mb-2 text-sm font-semibold text-ink">Maker&apos;s ratings</legend>
+        {num("ratings.frontKg", "Front axle", "kg", { required: true })}
+        {num("ratings.rearKg", "Rear axle", "kg", { required: true })}
+        {num("ratings.gvmKg", "GVM", "kg", { required: true })}
+        {num("ratings.gcmKg", "GCM", "kg", { hint: "Leave empty if not rated" })}
+      </fieldset>
 
-          <fieldset className="flex flex-col gap-3">
-            <legend className="mb-2 text-sm font-semibold text-ink">Items added</legend>
-            <p className="-mt-1 text-sm text-muted">
-              Position is the distance behind the front axle centre line; negative is ahead of it. Past the rear axle an item takes load off the
-              front.
-            </p>
-            {items.map((item, i) => (
-              <div key={item.key} className="grid grid-cols-2 items-start gap-3 rounded-md border border-line p-3 sm:grid-cols-[1fr_8rem_9rem_auto]">
-                <TextField
-                  name={`items.${i}.label`}
-                  label={`Item ${i + 1}`}
-                  className="col-span-2 sm:col-span-1"
-                  value={item.label}
-                  onChange={setItem(item.key, "label")}
-                  error={calc.errorOf(`items.${i}.label`)}
-                />
-                <NumberField
-                  name={`items.${i}.massKg`}
-                  label="Mass"
-                  unit="kg"
-                  value={item.massKg}
-                  onChange={setItem(item.key, "massKg")}
-                  error={calc.errorOf(`items.${i}.massKg`)}
-                  required
-                />
-                <NumberField
-                  name={`items.${i}.xMm`}
-                  label="Position"
-                  unit="mm"
-                  value={item.xMm}
-                  onChange={setItem(item.key, "xMm")}
-                  error={calc.errorOf(`items.${i}.xMm`)}
-                  required
-                />
-                <Button
-                  type="button"
-                  variant="ghost"
-                  className="col-span-2 sm:col-span-1 sm:mt-7"
-                  onClick={() => setItems((rows) => rows.filter((r) => r.key !== item.key))}
-                  aria-label={`Remove item ${i + 1}${item.label ? ` (${item.label})` : ""}`}
-                >
-                  Remove
-                </Button>
-              </div>
-            ))}
-            <div>
-              <Button
-                type="button"
-                variant="secondary"
-                onClick={() => setItems((rows) => [...rows, { key: nextKey.current++, label: "", massKg: "", xMm: "" }])}
-              >
-                Add an item
-              </Button>
-            </div>
-          </fieldset>
-
-          <fieldset className="flex flex-col gap-3">
-            <legend className="mb-2 text-sm font-semibold text-ink">Trailer</legend>
-            <Checkbox
-              label="Towing a trailer"
-              hint="The towball download counts within GVM; the combination is the vehicle plus what the trailer's axles carry."
-              checked={towing}
-              onChange={(e) => setTowing(e.target.checked)}
+      <fieldset className="flex flex-col gap-3">
+        <legend className="mb-2 text-sm font-semibold text-ink">Items added</legend>
+        <p className="-mt-1 text-sm text-muted">
+          Position is the distance behind the front axle centre line; negative is ahead of it. Past the rear axle an item takes load off the
+          front.
+        </p>
+        {items.rows.map((item, i) => (
+          <div key={item.key} className="grid grid-cols-2 items-start gap-3 rounded-md border border-line p-3 sm:grid-cols-[1fr_8rem_9rem_auto]">
+            <TextField
+              name={`items.${i}.label`}
+              label={`Item ${i + 1}`}
+              className="col-span-2 sm:col-span-1"
+              value={item.label}
+              onChange={items.update(item.key, "label")}
+              error={calc.errorOf(`items.${i}.label`)}
             />
-            {towing && (
-              <div className="grid gap-4 sm:grid-cols-2">
-                {num("trailer.atmKg", "Trailer ATM", "kg", { required: true, hint: "Laden trailer, including the towball download" })}
-                {num("trailer.towballKg", "Towball download", "kg", { required: true, hint: "Weigh it where you can: 10 % of the ATM is only a rule of thumb" })}
-              </div>
-            )}
-          </fieldset>
-
-          <CalcFormMessage error={calc.error} shown={shown} label="Axle loads form message" />
-          <div>
-            <Button type="submit" loading={calc.pending}>
-              Work out axle loads
-            </Button>
+            <NumberField
+              name={`items.${i}.massKg`}
+              label="Mass"
+              unit="kg"
+              value={item.massKg}
+              onChange={items.update(item.key, "massKg")}
+              error={calc.errorOf(`items.${i}.massKg`)}
+              required
+            />
+            <NumberField
+              name={`items.${i}.xMm`}
+              label="Position"
+              unit="mm"
+              value={item.xMm}
+              onChange={items.update(item.key, "xMm")}
+              error={calc.errorOf(`items.${i}.xMm`)}
+              required
+            />
+            <RemoveRowButton
+              className="col-span-2 sm:col-span-1 sm:mt-7"
+              onRemove={() => items.remove(item.key)}
+              label={`Remove item ${i + 1}${item.label ? ` (${item.label})` : ""}`}
+            />
           </div>
-        </form>
-        {calc.result && (
-          <div className="mt-5">
-            <AxleLoadsResult result={calc.result} gcmRatingKg={submittedGcm} />
+        ))}
+        <div>
+          <Button type="button" variant="secondary" onClick={items.add}>
+            Add an item
+          </Button>
+        </div>
+      </fieldset>
+
+      <fieldset className="flex flex-col gap-3">
+        <legend className="mb-2 text-sm font-semibold text-ink">Trailer</legend>
+        <Checkbox
+          label="Towing a trailer"
+          hint="The towball download counts within GVM; the combination is the vehicle plus what the trailer's axles carry."
+          checked={towing}
+          onChange={(e) => setTowing(e.target.checked)}
+        />
+        {towing && (
+          <div className="grid gap-4 sm:grid-cols-2">
+            {num("trailer.atmKg", "Trailer ATM", "kg", { required: true, hint: "Laden trailer, including the towball download" })}
+            {num("trailer.towballKg", "Towball download", "kg", { required: true, hint: "Weigh it where you can: 10 % of the ATM is only a rule of thumb" })}
           </div>
         )}
-      </CardBody>
-    </Card>
+      </fieldset>
+
+    </CalculatorCard>
   );
 }

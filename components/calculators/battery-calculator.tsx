@@ -1,13 +1,15 @@
 "use client";
 
-import { useRef, useState, type FormEvent } from "react";
-import { Button, Card, CardBody, CardHeader, Checkbox } from "@/components/ui";
+import { useState } from "react";
+import { Button, Checkbox } from "@/components/ui";
 import { BatteryResult } from "./battery-result";
+import { CalculatorCard } from "./calculator-card";
 import { ChoiceField, NumberField, TextField } from "./fields";
 import { numberOrText } from "./numbers";
-import { CalcFormMessage } from "./parts";
+import { RemoveRowButton } from "./parts";
 import type { BatteryResponse } from "./types";
 import { useCalc } from "./use-calc";
+import { useRows } from "./use-rows";
 
 type Chemistry = "lead-acid" | "agm" | "lithium-iron-phosphate";
 type SourceKind = "dc-dc" | "solar" | "mains";
@@ -75,226 +77,180 @@ function percentAsFraction(raw: string): number | string | undefined {
 
 export function BatteryCalculator() {
   const calc = useCalc<BatteryResponse>("/api/calc/battery");
-  const nextKey = useRef(100);
   const [values, setValues] = useState<BatteryValues>({ systemV: "12", daysAutonomy: "2", chemistry: "lithium-iron-phosphate", inverterEfficiency: "" });
-  const [consumers, setConsumers] = useState<ConsumerRow[]>(() => START_CONSUMERS.map((c, key) => ({ ...c, key })));
+  const consumers = useRows<ConsumerRow>(START_CONSUMERS, { label: "", amount: "", unit: "W", hoursPerDay: "", dutyPct: "", ac: false });
   const [charging, setCharging] = useState(true);
-  const [sources, setSources] = useState<SourceRow[]>(() => START_SOURCES.map((s, i) => ({ ...s, key: 50 + i })));
+  const sources = useRows<SourceRow>(START_SOURCES, { kind: "dc-dc", amount: "", unit: "A", hoursPerDay: "" });
 
   const set =
     <K extends keyof BatteryValues>(k: K) =>
     (value: BatteryValues[K]) =>
       setValues((v) => ({ ...v, [k]: value }));
-  const setConsumer =
-    <K extends keyof ConsumerRow>(key: number, part: K) =>
-    (value: ConsumerRow[K]) =>
-      setConsumers((rows) => rows.map((r) => (r.key === key ? { ...r, [part]: value } : r)));
-  const setSource =
-    <K extends keyof SourceRow>(key: number, part: K) =>
-    (value: SourceRow[K]) =>
-      setSources((rows) => rows.map((r) => (r.key === key ? { ...r, [part]: value } : r)));
   const sourceError = (i: number, part: string) => calc.errorOf(`charging.sources.${i}.${part}`) ?? calc.errorOf(`sources.${i}.${part}`);
   const shown = (field: string) => TOP_FIELDS.has(field) || ROW_FIELD.test(field);
 
-  function submit(event: FormEvent) {
-    event.preventDefault();
-    calc.run(batteryBody(values, consumers, charging ? sources : null));
+  function submit() {
+    calc.run(batteryBody(values, consumers.rows, charging ? sources.rows : null));
   }
 
   return (
-    <Card id="battery">
-      <CardHeader
-        title="12 V battery"
-        description="The daily energy budget, the battery it needs for the days without charging, and whether the charging keeps up."
-      />
-      <CardBody>
-        <form onSubmit={submit} noValidate className="flex flex-col gap-5" aria-label="12 V battery">
-          <div className="grid gap-4 sm:grid-cols-2 lg:grid-cols-4">
-            <NumberField name="systemV" label="System voltage" unit="V" value={values.systemV} onChange={set("systemV")} error={calc.errorOf("systemV")} required />
+    <CalculatorCard
+      id="battery"
+      title="12 V battery"
+      description="The daily energy budget, the battery it needs for the days without charging, and whether the charging keeps up."
+      calc={calc}
+      shown={shown}
+      submitLabel="Plan the battery"
+      onSubmit={submit}
+      result={(r) => <BatteryResult result={r} />}
+    >
+      <div className="grid gap-4 sm:grid-cols-2 lg:grid-cols-4">
+        <NumberField name="systemV" label="System voltage" unit="V" value={values.systemV} onChange={set("systemV")} error={calc.errorOf("systemV")} required />
+        <NumberField
+          name="daysAutonomy"
+          label="Days without charging"
+          value={values.daysAutonomy}
+          onChange={set("daysAutonomy")}
+          error={calc.errorOf("daysAutonomy")}
+          required
+        />
+        <ChoiceField
+          name="chemistry"
+          label="Battery type"
+          hint="Usable: about 80 % lithium, 50 % AGM and lead-acid"
+          value={values.chemistry}
+          onChange={set("chemistry")}
+          options={CHEMISTRY_OPTIONS}
+          error={calc.errorOf("chemistry")}
+        />
+        <NumberField
+          name="inverterEfficiency"
+          label="Inverter efficiency"
+          unit="%"
+          hint="Leave empty for about 90 %"
+          value={values.inverterEfficiency}
+          onChange={set("inverterEfficiency")}
+          error={calc.errorOf("inverterEfficiency")}
+        />
+      </div>
+
+      <fieldset className="flex flex-col gap-3">
+        <legend className="mb-2 text-sm font-semibold text-ink">Consumers</legend>
+        {consumers.rows.map((c, i) => (
+          <div key={c.key} className="grid grid-cols-2 items-start gap-3 rounded-md border border-line p-3 sm:grid-cols-[1fr_6rem_5.5rem_6rem_6rem_auto]">
+            <TextField
+              name={`consumers.${i}.label`}
+              label={`Consumer ${i + 1}`}
+              className="col-span-2 sm:col-span-1"
+              value={c.label}
+              onChange={consumers.update(c.key, "label")}
+              error={calc.errorOf(`consumers.${i}.label`)}
+              required
+            />
             <NumberField
-              name="daysAutonomy"
-              label="Days without charging"
-              value={values.daysAutonomy}
-              onChange={set("daysAutonomy")}
-              error={calc.errorOf("daysAutonomy")}
+              name={`consumers.${i}.${c.unit === "W" ? "powerW" : "currentA"}`}
+              label="Draw"
+              unit={c.unit}
+              value={c.amount}
+              onChange={consumers.update(c.key, "amount")}
+              error={calc.errorOf(`consumers.${i}.powerW`) ?? calc.errorOf(`consumers.${i}.currentA`)}
               required
             />
             <ChoiceField
-              name="chemistry"
-              label="Battery type"
-              hint="Usable: about 80 % lithium, 50 % AGM and lead-acid"
-              value={values.chemistry}
-              onChange={set("chemistry")}
-              options={CHEMISTRY_OPTIONS}
-              error={calc.errorOf("chemistry")}
+              name={`consumers.${i}.unit`}
+              label="Given in"
+              value={c.unit}
+              onChange={consumers.update(c.key, "unit")}
+              options={[
+                { value: "W", label: "W" },
+                { value: "A", label: "A" },
+              ]}
             />
             <NumberField
-              name="inverterEfficiency"
-              label="Inverter efficiency"
-              unit="%"
-              hint="Leave empty for about 90 %"
-              value={values.inverterEfficiency}
-              onChange={set("inverterEfficiency")}
-              error={calc.errorOf("inverterEfficiency")}
+              name={`consumers.${i}.hoursPerDay`}
+              label="Hours a day"
+              value={c.hoursPerDay}
+              onChange={consumers.update(c.key, "hoursPerDay")}
+              error={calc.errorOf(`consumers.${i}.hoursPerDay`)}
+              required
             />
+            <NumberField
+              name={`consumers.${i}.dutyPct`}
+              label="Running"
+              unit="%"
+              value={c.dutyPct}
+              onChange={consumers.update(c.key, "dutyPct")}
+              error={calc.errorOf(`consumers.${i}.dutyPct`)}
+            />
+            <div className="col-span-2 flex flex-wrap items-center justify-between gap-1 sm:col-span-1 sm:mt-5 sm:flex-col sm:items-start">
+              <Checkbox label="AC (inverter)" checked={c.ac} onChange={(e) => consumers.update(c.key, "ac")(e.target.checked)} />
+              <RemoveRowButton size="sm" onRemove={() => consumers.remove(c.key)} label={`Remove consumer ${i + 1}${c.label ? ` (${c.label})` : ""}`} />
+            </div>
           </div>
+        ))}
+        <p className="text-sm text-muted">Running: the share of those hours it actually draws, e.g. 50 for a fridge compressor. Leave empty for all of them.</p>
+        <div>
+          <Button type="button" variant="secondary" onClick={consumers.add}>
+            Add a consumer
+          </Button>
+        </div>
+      </fieldset>
 
-          <fieldset className="flex flex-col gap-3">
-            <legend className="mb-2 text-sm font-semibold text-ink">Consumers</legend>
-            {consumers.map((c, i) => (
-              <div key={c.key} className="grid grid-cols-2 items-start gap-3 rounded-md border border-line p-3 sm:grid-cols-[1fr_6rem_5.5rem_6rem_6rem_auto]">
-                <TextField
-                  name={`consumers.${i}.label`}
-                  label={`Consumer ${i + 1}`}
+      <fieldset className="flex flex-col gap-3">
+        <legend className="mb-2 text-sm font-semibold text-ink">Charging</legend>
+        <Checkbox label="Check the charging too" checked={charging} onChange={(e) => setCharging(e.target.checked)} />
+        {charging && (
+          <>
+            {sources.rows.map((s, i) => (
+              <div key={s.key} className="grid grid-cols-2 items-start gap-3 rounded-md border border-line p-3 sm:grid-cols-[1fr_7rem_5.5rem_7rem_auto]">
+                <ChoiceField
+                  name={`charging.sources.${i}.kind`}
+                  label={`Source ${i + 1}`}
                   className="col-span-2 sm:col-span-1"
-                  value={c.label}
-                  onChange={setConsumer(c.key, "label")}
-                  error={calc.errorOf(`consumers.${i}.label`)}
-                  required
+                  value={s.kind}
+                  onChange={sources.update(s.key, "kind")}
+                  options={KIND_OPTIONS}
+                  error={sourceError(i, "kind")}
                 />
                 <NumberField
-                  name={`consumers.${i}.${c.unit === "W" ? "powerW" : "currentA"}`}
-                  label="Draw"
-                  unit={c.unit}
-                  value={c.amount}
-                  onChange={setConsumer(c.key, "amount")}
-                  error={calc.errorOf(`consumers.${i}.powerW`) ?? calc.errorOf(`consumers.${i}.currentA`)}
+                  name={`charging.sources.${i}.${s.unit === "A" ? "currentA" : "watts"}`}
+                  label="Output"
+                  unit={s.unit}
+                  value={s.amount}
+                  onChange={sources.update(s.key, "amount")}
+                  error={sourceError(i, "currentA") ?? sourceError(i, "watts")}
                   required
                 />
                 <ChoiceField
-                  name={`consumers.${i}.unit`}
+                  name={`charging.sources.${i}.unit`}
                   label="Given in"
-                  value={c.unit}
-                  onChange={setConsumer(c.key, "unit")}
+                  value={s.unit}
+                  onChange={sources.update(s.key, "unit")}
                   options={[
-                    { value: "W", label: "W" },
                     { value: "A", label: "A" },
+                    { value: "W", label: "W" },
                   ]}
                 />
                 <NumberField
-                  name={`consumers.${i}.hoursPerDay`}
-                  label="Hours a day"
-                  value={c.hoursPerDay}
-                  onChange={setConsumer(c.key, "hoursPerDay")}
-                  error={calc.errorOf(`consumers.${i}.hoursPerDay`)}
-                  required
+                  name={`charging.sources.${i}.hoursPerDay`}
+                  label={s.kind === "solar" ? "Peak sun hours" : "Hours a day"}
+                  value={s.hoursPerDay}
+                  onChange={sources.update(s.key, "hoursPerDay")}
+                  error={sourceError(i, "hoursPerDay")}
+                  required={s.kind === "solar"}
                 />
-                <NumberField
-                  name={`consumers.${i}.dutyPct`}
-                  label="Running"
-                  unit="%"
-                  value={c.dutyPct}
-                  onChange={setConsumer(c.key, "dutyPct")}
-                  error={calc.errorOf(`consumers.${i}.dutyPct`)}
-                />
-                <div className="col-span-2 flex flex-wrap items-center justify-between gap-1 sm:col-span-1 sm:mt-5 sm:flex-col sm:items-start">
-                  <Checkbox label="AC (inverter)" checked={c.ac} onChange={(e) => setConsumer(c.key, "ac")(e.target.checked)} />
-                  <Button
-                    type="button"
-                    variant="ghost"
-                    size="sm"
-                    onClick={() => setConsumers((rows) => rows.filter((r) => r.key !== c.key))}
-                    aria-label={`Remove consumer ${i + 1}${c.label ? ` (${c.label})` : ""}`}
-                  >
-                    Remove
-                  </Button>
-                </div>
+                <RemoveRowButton className="col-span-2 sm:col-span-1 sm:mt-7" onRemove={() => sources.remove(s.key)} label={`Remove source ${i + 1}`} />
               </div>
             ))}
-            <p className="text-sm text-muted">Running: the share of those hours it actually draws, e.g. 50 for a fridge compressor. Leave empty for all of them.</p>
             <div>
-              <Button
-                type="button"
-                variant="secondary"
-                onClick={() =>
-                  setConsumers((rows) => [...rows, { key: nextKey.current++, label: "", amount: "", unit: "W", hoursPerDay: "", dutyPct: "", ac: false }])
-                }
-              >
-                Add a consumer
+              <Button type="button" variant="secondary" onClick={sources.add}>
+                Add a source
               </Button>
             </div>
-          </fieldset>
-
-          <fieldset className="flex flex-col gap-3">
-            <legend className="mb-2 text-sm font-semibold text-ink">Charging</legend>
-            <Checkbox label="Check the charging too" checked={charging} onChange={(e) => setCharging(e.target.checked)} />
-            {charging && (
-              <>
-                {sources.map((s, i) => (
-                  <div key={s.key} className="grid grid-cols-2 items-start gap-3 rounded-md border border-line p-3 sm:grid-cols-[1fr_7rem_5.5rem_7rem_auto]">
-                    <ChoiceField
-                      name={`charging.sources.${i}.kind`}
-                      label={`Source ${i + 1}`}
-                      className="col-span-2 sm:col-span-1"
-                      value={s.kind}
-                      onChange={setSource(s.key, "kind")}
-                      options={KIND_OPTIONS}
-                      error={sourceError(i, "kind")}
-                    />
-                    <NumberField
-                      name={`charging.sources.${i}.${s.unit === "A" ? "currentA" : "watts"}`}
-                      label="Output"
-                      unit={s.unit}
-                      value={s.amount}
-                      onChange={setSource(s.key, "amount")}
-                      error={sourceError(i, "currentA") ?? sourceError(i, "watts")}
-                      required
-                    />
-                    <ChoiceField
-                      name={`charging.sources.${i}.unit`}
-                      label="Given in"
-                      value={s.unit}
-                      onChange={setSource(s.key, "unit")}
-                      options={[
-                        { value: "A", label: "A" },
-                        { value: "W", label: "W" },
-                      ]}
-                    />
-                    <NumberField
-                      name={`charging.sources.${i}.hoursPerDay`}
-                      label={s.kind === "solar" ? "Peak sun hours" : "Hours a day"}
-                      value={s.hoursPerDay}
-                      onChange={setSource(s.key, "hoursPerDay")}
-                      error={sourceError(i, "hoursPerDay")}
-                      required={s.kind === "solar"}
-                    />
-                    <Button
-                      type="button"
-                      variant="ghost"
-                      className="col-span-2 sm:col-span-1 sm:mt-7"
-                      onClick={() => setSources((rows) => rows.filter((r) => r.key !== s.key))}
-                      aria-label={`Remove source ${i + 1}`}
-                    >
-                      Remove
-                    </Button>
-                  </div>
-                ))}
-                <div>
-                  <Button
-                    type="button"
-                    variant="secondary"
-                    onClick={() => setSources((rows) => [...rows, { key: nextKey.current++, kind: "dc-dc", amount: "", unit: "A", hoursPerDay: "" }])}
-                  >
-                    Add a source
-                  </Button>
-                </div>
-              </>
-            )}
-          </fieldset>
-
-          <CalcFormMessage error={calc.error} shown={shown} label="12 V battery form message" />
-          <div>
-            <Button type="submit" loading={calc.pending}>
-              Plan the battery
-            </Button>
-          </div>
-        </form>
-        {calc.result && (
-          <div className="mt-5">
-            <BatteryResult result={calc.result} />
-          </div>
+          </>
         )}
-      </CardBody>
-    </Card>
+      </fieldset>
+
+    </CalculatorCard>
   );
 }

@@ -1,12 +1,11 @@
 "use client";
 
-import { useState, type FormEvent } from "react";
-import { Button, Card, CardBody, CardHeader } from "@/components/ui";
+import { useState } from "react";
 import { conductorSizes, MAX_DROP_PCT_BY_CIRCUIT } from "@/lib/electrical";
 import { CableRunResult } from "./cable-run-result";
+import { CalculatorCard } from "./calculator-card";
 import { ChoiceField, NumberField } from "./fields";
 import { numberOrText } from "./numbers";
-import { CalcFormMessage } from "./parts";
 import type { CableRunResponse } from "./types";
 import { useCalc } from "./use-calc";
 
@@ -68,113 +67,102 @@ export function CableRunCalculator() {
     (value: CableValues[K]) =>
       setValues((v) => ({ ...v, [k]: value }));
 
-  function submit(event: FormEvent) {
-    event.preventDefault();
+  function submit() {
     calc.run(cableRunBody(values));
   }
 
   return (
-    <Card id="cable-run">
-      <CardHeader
-        title="Cable run"
-        description="The voltage drop of a 12 V run, the cable size that keeps it within the limit, and the fuse that protects that cable."
-      />
-      <CardBody>
-        <form onSubmit={submit} noValidate className="flex flex-col gap-5" aria-label="Cable run">
-          <div className="grid gap-4 sm:grid-cols-3">
-            <NumberField
-              name="currentA"
-              label="Load current"
-              unit="A"
-              value={values.currentA}
-              onChange={set("currentA")}
-              error={calc.errorOf("currentA")}
-              required
-            />
-            <NumberField
-              name="lengthOneWayM"
-              label="Run length, one way"
-              unit="m"
-              hint="Battery to load; the return path is counted for you"
-              value={values.lengthOneWayM}
-              onChange={set("lengthOneWayM")}
-              error={calc.errorOf("lengthOneWayM")}
-              required
-            />
-            <NumberField
-              name="systemV"
-              label="System voltage"
-              unit="V"
-              value={values.systemV}
-              onChange={set("systemV")}
-              error={calc.errorOf("systemV")}
-              required
-            />
-            <ChoiceField
-              name="circuit"
-              label="Drop limit"
-              className="sm:col-span-2"
-              value={values.limit}
-              onChange={set("limit")}
-              options={LIMIT_OPTIONS}
-              error={calc.errorOf("circuit")}
-            />
-            {values.limit === "own" ? (
-              <NumberField
-                name="maxDropPct"
-                label="Largest drop"
-                unit="%"
-                value={values.maxDropPct}
-                onChange={set("maxDropPct")}
-                error={calc.errorOf("maxDropPct")}
-                required
-              />
-            ) : (
-              <div aria-hidden="true" />
-            )}
-            <ChoiceField
-              name="areaMm2"
-              label="Cable to check"
-              hint="The cable fitted or planned, if any"
-              value={values.areaMm2}
-              onChange={set("areaMm2")}
-              options={SIZE_OPTIONS}
-              error={calc.errorOf("areaMm2")}
-            />
-            <ChoiceField
-              name="sizeSeries"
-              label="Recommend sizes in"
-              value={values.sizeSeries}
-              onChange={set("sizeSeries")}
-              options={[
-                { value: "metric", label: "mm² (metric)" },
-                { value: "awg", label: "AWG" },
-              ]}
-              error={calc.errorOf("sizeSeries")}
-            />
-            <NumberField
-              name="temperatureC"
-              label="Conductor temperature"
-              unit="°C"
-              hint="Leave empty for 20 °C; engine bays run hotter"
-              value={values.temperatureC}
-              onChange={set("temperatureC")}
-              error={calc.errorOf("temperatureC")}
-            />
-          </div>
-          <CalcFormMessage error={calc.error} shown={(f) => FIELDS.has(f) && (f !== "maxDropPct" || values.limit === "own")} label="Cable run form message" />
-          <div>
-            <Button type="submit" loading={calc.pending}>
-              Size the cable
-            </Button>
-          </div>
-        </form>
-        {calc.result && (
-          <div className="mt-5">
-            <CableRunResult result={calc.result} />
-          </div>
+    <CalculatorCard
+      id="cable-run"
+      title="Cable run"
+      description="The voltage drop of a 12 V run, the cable size that keeps it within the limit, and the fuse that protects that cable."
+      calc={calc}
+      shown={(f) => FIELDS.has(f) && (f !== "maxDropPct" || values.limit === "own")}
+      submitLabel="Size the cable"
+      onSubmit={submit}
+      result={(r) => <CableRunResult result={r} />}
+    >
+      <div className="grid gap-4 sm:grid-cols-3">
+        <NumberField
+          name="currentA"
+          label="Load current"
+          unit="A"
+          value={values.currentA}
+          onChange={set("currentA")}
+          error={calc.errorOf("currentA")}
+          required
+        />
+        <NumberField
+          name="lengthOneWayM"
+          label="Run length, one way"
+          unit="m"
+          hint="Battery to load; the return path is counted for you"
+          value={values.lengthOneWayM}
+          onChange={set("lengthOneWayM")}
+          error={calc.errorOf("lengthOneWayM")}
+          required
+        />
+        <NumberField
+          name="systemV"
+          label="System voltage"
+          unit="V"
+          value={values.systemV}
+          onChange={set("systemV")}
+          error={calc.errorOf("systemV")}
+          required
+        />
+        <ChoiceField
+          name="circuit"
+          label="Drop limit"
+          className="sm:col-span-2"
+          value={values.limit}
+          onChange={set("limit")}
+          options={LIMIT_OPTIONS}
+          error={calc.errorOf("circuit")}
+        />
+        {values.limit === "own" ? (
+          <NumberField
+            name="maxDropPct"
+            label="Largest drop"
+            unit="%"
+            value={values.maxDropPct}
+            onChange={set("maxDropPct")}
+            error={calc.errorOf("maxDropPct")}
+            required
+          />
+        ) : (
+          <div aria-hidden="true" />
         )}
-      </CardBody>
-    </Card>
+        <ChoiceField
+          name="areaMm2"
+          label="Cable to check"
+          hint="The cable fitted or planned, if any"
+          value={values.areaMm2}
+          onChange={set("areaMm2")}
+          options={SIZE_OPTIONS}
+          error={calc.errorOf("areaMm2")}
+        />
+        <ChoiceField
+          name="sizeSeries"
+          label="Recommend sizes in"
+          value={values.sizeSeries}
+          onChange={set("sizeSeries")}
+          options={[
+            { value: "metric", label: "mm² (metric)" },
+            { value: "awg", label: "AWG" },
+          ]}
+          error={calc.errorOf("sizeSeries")}
+        />
+        <NumberField
+          name="temperatureC"
+          label="Conductor temperature"
+          unit="°C"
+          hint="Leave empty for 20 °C; engine bays run hotter"
+          value={values.temperatureC}
+          onChange={set("temperatureC")}
+          error={calc.errorOf("temperatureC")}
+        />
+      </div>
+    </CalculatorCard>
   );
 }

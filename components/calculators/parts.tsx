@@ -1,5 +1,5 @@
 import type { ReactNode } from "react";
-import { Caution, FormMessage, StatusPill, type StatusTone } from "@/components/ui";
+import { Button, Caution, FormMessage, StatusPill, type StatusTone } from "@/components/ui";
 import { unplacedDetails, type CalcError } from "./api";
 
 /** Severity of a finding as the lib reports it. */
@@ -94,5 +94,14 @@ export function Verdict({ tone, word, children }: { tone: StatusTone; word: stri
     <p className="flex flex-wrap items-center gap-2 text-base font-medium text-ink" data-testid="calc-verdict">
       <StatusPill tone={tone}>{word}</StatusPill> <span>{children}</span>
     </p>
+  );
+}
+
+/** The button that takes one row out of a list in a calculator form. */
+export function RemoveRowButton({ label, onRemove, className, size }: { label: string; onRemove: () => void; className?: string; size?: "sm" }) {
+  return (
+    <Button type="button" variant="ghost" size={size} className={className} onClick={onRemove} aria-label={label}>
+      Remove
+    </Button>
   );
 }

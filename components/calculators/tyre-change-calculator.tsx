@@ -1,12 +1,11 @@
 "use client";
 
-import { useState, type FormEvent } from "react";
-import { Button, Card, CardBody, CardHeader } from "@/components/ui";
+import { useState } from "react";
+import { CalculatorCard } from "./calculator-card";
 import { ChoiceField, NumberField, TextField } from "./fields";
 import { numberOrText } from "./numbers";
-import { CalcFormMessage } from "./parts";
-import { TyreChangeResult } from "./tyre-change-result";
 import type { RuleSetOption, TyreChangeResponse } from "./types";
+import { TyreChangeResult } from "./tyre-change-result";
 import { useCalc } from "./use-calc";
 
 const FIELDS = new Set(["from", "to", "speedoReadsHighPct", "ruleSetId", "suspensionLiftMm"]);
@@ -32,81 +31,70 @@ export function TyreChangeCalculator({ ruleSets }: { ruleSets: readonly RuleSetO
   });
   const set = (k: keyof typeof values) => (value: string) => setValues((v) => ({ ...v, [k]: value }));
 
-  function submit(event: FormEvent) {
-    event.preventDefault();
+  function submit() {
     calc.run(tyreChangeBody(values));
   }
 
   return (
-    <Card id="tyre-change">
-      <CardHeader
-        title="Tyre change"
-        description="What a new tyre size does to the diameter, ground clearance and speedometer, and how the lift compares with a rule set."
-      />
-      <CardBody>
-        <form onSubmit={submit} noValidate className="flex flex-col gap-5" aria-label="Tyre change">
-          <div className="grid gap-4 sm:grid-cols-2">
-            <TextField
-              name="from"
-              label="Size fitted now"
-              placeholder="265/70R17"
-              hint="As on the sidewall, e.g. 265/70R17 112T or 35x12.50R17LT"
-              value={values.from}
-              onChange={set("from")}
-              error={calc.errorOf("from")}
-              required
-            />
-            <TextField
-              name="to"
-              label="Size proposed"
-              placeholder="285/70R17"
-              value={values.to}
-              onChange={set("to")}
-              error={calc.errorOf("to")}
-              required
-            />
-            <NumberField
-              name="speedoReadsHighPct"
-              label="Speedometer read high on the old tyres by"
-              unit="%"
-              hint="E.g. 5 if it showed 100 at a true 95 km/h. Leave empty if not known: it is then taken as exact."
-              value={values.speedoReadsHighPct}
-              onChange={set("speedoReadsHighPct")}
-              error={calc.errorOf("speedoReadsHighPct")}
-            />
-            <NumberField
-              name="suspensionLiftMm"
-              label="Suspension lift fitted with the tyres"
-              unit="mm"
-              hint="Leave empty for none"
-              value={values.suspensionLiftMm}
-              onChange={set("suspensionLiftMm")}
-              error={calc.errorOf("suspensionLiftMm")}
-            />
-            <ChoiceField
-              name="ruleSetId"
-              label="Rule set"
-              hint="Example values only — check your local rules."
-              className="sm:col-span-2"
-              value={values.ruleSetId}
-              onChange={set("ruleSetId")}
-              options={ruleSets.map((r) => ({ value: r.id, label: r.name }))}
-              error={calc.errorOf("ruleSetId")}
-            />
-          </div>
-          <CalcFormMessage error={calc.error} shown={(f) => FIELDS.has(f)} label="Tyre change form message" />
-          <div>
-            <Button type="submit" loading={calc.pending}>
-              Check the tyre change
-            </Button>
-          </div>
-        </form>
-        {calc.result && (
-          <div className="mt-5">
-            <TyreChangeResult result={calc.result} />
-          </div>
-        )}
-      </CardBody>
-    </Card>
+    <CalculatorCard
+      id="tyre-change"
+      title="Tyre change"
+      description="What a new tyre size does to the diameter, ground clearance and speedometer, and how the lift compares with a rule set."
+      calc={calc}
+      shown={(f) => FIELDS.has(f)}
+      submitLabel="Check the tyre change"
+      onSubmit={submit}
+      result={(r) => <TyreChangeResult result={r} />}
+    >
+      <div className="grid gap-4 sm:grid-cols-2">
+        <TextField
+          name="from"
+          label="Size fitted now"
+          placeholder="265/70R17"
+          hint="As on the sidewall, e.g. 265/70R17 112T or 35x12.50R17LT"
+          value={values.from}
+          onChange={set("from")}
+          error={calc.errorOf("from")}
+          required
+        />
+        <TextField
+          name="to"
+          label="Size proposed"
+          placeholder="285/70R17"
+          value={values.to}
+          onChange={set("to")}
+          error={calc.errorOf("to")}
+          required
+        />
+        <NumberField
+          name="speedoReadsHighPct"
+          label="Speedometer read high on the old tyres by"
+          unit="%"
+          hint="E.g. 5 if it showed 100 at a true 95 km/h. Leave empty if not known: it is then taken as exact."
+          value={values.speedoReadsHighPct}
+          onChange={set("speedoReadsHighPct")}
+          error={calc.errorOf("speedoReadsHighPct")}
+        />
+        <NumberField
+          name="suspensionLiftMm"
+          label="Suspension lift fitted with the tyres"
+          unit="mm"
+          hint="Leave empty for none"
+          value={values.suspensionLiftMm}
+          onChange={set("suspensionLiftMm")}
+          error={calc.errorOf("suspensionLiftMm")}
+        />
+        <ChoiceField
+          name="ruleSetId"
+          label="Rule set"
+          hint="Example values only — check your local rules."
+          className="sm:col-span-2"
+          value={values.ruleSetId}
+          onChange={set("ruleSetId")}
+          options={ruleSets.map((r) => ({ value: r.id, label: r.name }))}
+          error={calc.errorOf("ruleSetId")}
+        />
+      </div>
+    </CalculatorCard>
   );
 }

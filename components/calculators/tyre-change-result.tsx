@@ -1,5 +1,6 @@
-import { Quantity, StatusPill, Table, TBody, Td, Th, THead, Tr } from "@/components/ui";
+import { Quantity, Table, TBody, Td, Th, THead, Tr } from "@/components/ui";
 import { FindingsList, ResultPanel, SeverityPill, Verdict } from "./parts";
+import { SpeedometerTable } from "./speedometer-table";
 import type { TyreChangeResponse } from "./types";
 
 /** Short names of the checks, for the one-line answer. */
@@ -79,50 +80,7 @@ export function TyreChangeResult({ result }: { result: TyreChangeResponse }) {
         </dd>
       </dl>
 
-      <Table label="Speedometer on the new tyres">
-        <THead>
-          <Tr>
-            <Th numeric>Indicated</Th>
-            <Th numeric>True, old tyres</Th>
-            <Th numeric>True, new tyres</Th>
-            <Th numeric>Reads high by</Th>
-            <Th numeric>Allowed high</Th>
-            <Th>Accuracy rule</Th>
-          </Tr>
-        </THead>
-        <TBody>
-          {result.speedometer.map((row) => (
-            <Tr key={row.indicatedKmh} data-indicated={row.indicatedKmh}>
-              <Td numeric>
-                <Quantity value={row.indicatedKmh} unit="km/h" />
-              </Td>
-              <Td numeric>
-                <Quantity value={row.trueOldKmh} unit="km/h" digits={1} />
-              </Td>
-              <Td numeric>
-                <Quantity value={row.trueNewKmh} unit="km/h" digits={1} />
-              </Td>
-              <Td numeric>
-                <Quantity value={row.readsHighKmh} unit="km/h" digits={1} signed />
-              </Td>
-              <Td numeric>
-                <Quantity value={row.allowedHighKmh} unit="km/h" digits={1} />
-              </Td>
-              <Td>
-                {row.compliant ? (
-                  <StatusPill tone="ok" size="sm">
-                    Meets
-                  </StatusPill>
-                ) : (
-                  <StatusPill tone="danger" size="sm">
-                    {row.readsHighKmh < 0 ? "Reads low" : "Reads too high"}
-                  </StatusPill>
-                )}
-              </Td>
-            </Tr>
-          ))}
-        </TBody>
-      </Table>
+      <SpeedometerTable rows={result.speedometer} />
       <p className="-mt-2 text-sm text-muted">
         Accuracy rule: a speedometer may read high by up to a tenth of the true speed plus 4 km/h, and never low.
       </p>

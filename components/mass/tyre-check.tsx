@@ -1,6 +1,7 @@
 "use client";
 
-import { Caution, Field, Input, Quantity, StatusPill, Table, TBody, Td, Th, THead, Tr } from "@/components/ui";
+import { SpeedometerTable } from "@/components/calculators/speedometer-table";
+import { Caution, Field, Input, Quantity, StatusPill } from "@/components/ui";
 import { InputError } from "@/lib/errors";
 import type { RuleSet } from "@/lib/rules";
 import { tyreChange, type TyreChangeResult } from "@/lib/tyres";
@@ -77,40 +78,7 @@ export function TyreCheck(props: Props) {
             </span>
           </div>
           <FindingList findings={result.findings} label="Tyre change findings" />
-          <Table label="Speedometer on the new tyres">
-            <THead>
-              <Tr>
-                <Th numeric>Indicated</Th>
-                <Th numeric>True, old tyres</Th>
-                <Th numeric>True, new tyres</Th>
-                <Th numeric>Reads high by</Th>
-                <Th>Rule</Th>
-              </Tr>
-            </THead>
-            <TBody>
-              {result.speedometer.map((row) => (
-                <Tr key={row.indicatedKmh}>
-                  <Td numeric>
-                    <Quantity value={row.indicatedKmh} unit="km/h" />
-                  </Td>
-                  <Td numeric>
-                    <Quantity value={row.trueOldKmh} unit="km/h" digits={1} />
-                  </Td>
-                  <Td numeric>
-                    <Quantity value={row.trueNewKmh} unit="km/h" digits={1} />
-                  </Td>
-                  <Td numeric>
-                    <Quantity value={row.readsHighKmh} unit="km/h" digits={1} signed />
-                  </Td>
-                  <Td>
-                    <StatusPill tone={row.compliant ? "ok" : "danger"} size="sm">
-                      {row.compliant ? "Within" : row.readsHighKmh < 0 ? "Reads low" : "Too high"}
-                    </StatusPill>
-                  </Td>
-                </Tr>
-              ))}
-            </TBody>
-          </Table>
+          <SpeedometerTable rows={result.speedometer} />
         </div>
       )}
       <Caution text={tyreCaution(props.rules.name)} />

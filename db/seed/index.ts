@@ -41,6 +41,22 @@ export async function seedDemo(database: Database): Promise<SeedReport> {
   return report;
 }
 
+const DAY_MS = 86_400_000;
+
+/**
+ * Days from the seed's today to a demo vehicle's registration expiry. Nearly every registration
+ * is current (45 days to about a year ahead); three of the larger fleet are set for the demo:
+ * MH-011 expired twelve days ago (not ready), MH-017 and MH-028 fall due within 30 days (limited,
+ * with the reason shown).
+ */
+const DEMO_REGISTRATION_DAYS: Readonly<Record<number, number>> = { 10: -12, 16: 9, 27: 24 };
+
+export function registrationExpiry(index: number, now: Date): Date {
+  const today = Date.UTC(now.getUTCFullYear(), now.getUTCMonth(), now.getUTCDate());
+  const days = DEMO_REGISTRATION_DAYS[index] ?? 45 + ((index * 53) % 320);
+  return new Date(today + days * DAY_MS);
+}
+
 const STATE_PATTERN = ["in_service", "in_service", "in_service", "in_service", "in_fitout", "in_service", "in_service", "in_service", "in_service", "in_service"] as const;
 
 async function seedOrganisation(tx: Database, scenario: DemoOrganisation, passwordHash: string) {
@@ -85,7 +101,7 @@ async function seedOrganisation(tx: Database, scenario: DemoOrganisation, passwo
     .values(scenario.platforms.map(({ code: _code, ...p }) => ({ ...p, orgId: org.id })))
     .returning();
 
-  const year = 2026;
+  const now = new Date();
   for (let i = 0; i < scenario.vehicleCount; i++) {
     const platform = platformRows[i % platformRows.length]!;
     const depot = depotRows[i % depotRows.length]!;
@@ -99,7 +115,7 @@ async function seedOrganisation(tx: Database, scenario: DemoOrganisation, passwo
         fleetNumber: `${scenario.fleetPrefix}-${String(i + 1).padStart(3, "0")}`,
         vin: demoVin(scenario.fleetPrefix, i),
         registration: demoRegistration(scenario.fleetPrefix, i),
-        registrationExpiry: new Date(Date.UTC(year + (i % 2), (i * 5) % 12, 1 + (i % 27))),
+        registrationExpiry: registrationExpiry(i, now),
         platformId: platform.id,
         depotId: depot.id,
         costCentre: `CC-${depot.code}-${platform.make.slice(0, 3).toUpperCase()}`,

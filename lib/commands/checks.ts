@@ -1,15 +1,13 @@
 import "server-only";
 import { z } from "zod";
 import { db } from "@/db/client";
-import { checkableLines, findCheck, findCheckByClientId, findPhoto, listChecks, vehicleForReport } from "@/db/defects";
+import { checkableLines, findCheck, findCheckByClientId, listChecks, vehicleForReport } from "@/db/defects";
 import { evidence, preTripChecks } from "@/db/schema";
 import { buildChecklist, checkAnswers, checkSummary, preTripCheckSchema } from "@/lib/defects";
 import { InputError } from "@/lib/errors";
 import { notFound } from "@/lib/server/errors";
 import { command, execute, query } from "@/lib/server/operation";
-import { storage } from "@/lib/server/storage";
-import { AlreadyRecorded, defectWrites, reportedTime, sameReportOrConflict, storePhotos, type StoredPhoto } from "./defects";
-import { oneAtATime } from "./jobs";
+import { AlreadyRecorded, readPhoto, reportedTime, sameReportOrConflict, storePhotos, type StoredPhoto } from "./defects";
 
 /** At most this many photos on one item, and on one check. */
 export const MAX_PHOTOS_PER_ITEM = 3;
@@ -155,7 +153,7 @@ export const submitCheck = query({
       for (const p of await storePhotos(user.orgId, list, `photos.${itemKey}`)) storedPhotos.push({ ...p, itemKey });
     }
     try {
-      return { check: await oneAtATime(defectWrites(user.orgId), () => execute(recordCheck, user, { ...check, storedPhotos })), created: true };
+      return { check: await execute(recordCheck, user, { ...check, storedPhotos }), created: true };
     } catch (error) {
       if (!(error instanceof AlreadyRecorded)) throw error;
       return { check: toSummary(error.record as typeof preTripChecks.$inferSelect), created: false };
@@ -186,10 +184,6 @@ export const readCheckPhoto = query({
   input: z.object({ id: idField, photoId: idField }),
   permission: ["read", "PreTripCheck"],
   run: async ({ user, input }) => {
-    const photo = await findPhoto(db(), user, { checkId: input.id }, input.photoId);
-    if (!photo) throw notFound("That photo");
-    const file = await storage().get(photo.storageKey);
-    if (!file) throw notFound("That photo's file");
-    return { bytes: file.bytes, contentType: photo.contentType, filename: photo.filename };
+    return readPhoto(user, { checkId: input.id }, input.photoId);
   },
 });

@@ -536,7 +536,7 @@ export const fleetTrends = query({
     const from = input.from ?? new Date(now.getTime() - 365 * DAY_MS);
     const database = db();
     let items = await listFleetSnapshots(database, user, isoDay(from));
-    // The day's figures are taken the first time anyone looks (a scheduler may take them earlier).
+    // Fallback: the daily scheduler normally took today's figures already; otherwise this visit does.
     if (items[items.length - 1]?.day !== isoDay(now)) {
       await recordFleetSnapshot(database, user.orgId, await fleetFiguresNow(database, user.orgId, now));
       items = await listFleetSnapshots(database, user, isoDay(from));

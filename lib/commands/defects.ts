@@ -39,7 +39,6 @@ import { command, execute, query } from "@/lib/server/operation";
 import type { SignedIn } from "@/lib/server/session";
 import { sha256OfBytes, storage } from "@/lib/server/storage";
 import { checkUploadSize, checkUploadType, displayFileName, evidenceStorageKey } from "@/lib/uploads";
-import { oneAtATime } from "./jobs";
 import { appUrl } from "./links";
 
 // ─── Photos ─────────────────────────────────────────────────────────────────────
@@ -340,7 +339,7 @@ export const submitDefect = query({
     const { photos, ...report } = input;
     const storedPhotos = await storePhotos(user.orgId, photos, "photos");
     try {
-      return { ...(await oneAtATime(defectWrites(user.orgId), () => execute(recordDefect, user, { ...report, storedPhotos }))), created: true };
+      return { ...(await execute(recordDefect, user, { ...report, storedPhotos })), created: true };
     } catch (error) {
       if (!(error instanceof AlreadyRecorded)) throw error;
       return repeat(error.record as DefectRow);
@@ -348,15 +347,9 @@ export const submitDefect = query({
   },
 });
 
-/**
- * The key that queues this organisation's defect and check writes in this process. The local
- * SQLite driver blocks the process while it waits for a busy database, so two writers at once
- * would time out instead of waiting; queued, the second sees the first's row (a repeat answers
- * 200, a stale move 409). Separate server processes queue on the database lock itself.
- */
-export const defectWrites = (orgId: string) => `defects:${orgId}`;
-
-
+// Writes need no queue of their own here: db/write-queue.ts runs one write transaction at a time
+// in this process, and recordDefect / recordCheck / moveDefect re-read the device id and the
+// version inside their transaction, so a repeat answers 200 and a stale move 409.
 
 // ─── Reading ────────────────────────────────────────────────────────────────────
 
@@ -410,13 +403,21 @@ export const readDefectPhoto = query({
   input: z.object({ id: idField, photoId: idField }),
   permission: ["read", "Defect"],
   run: async ({ user, input }) => {
-    const photo = await findPhoto(db(), user, { defectId: input.id }, input.photoId);
-    if (!photo) throw notFound("That photo");
-    const file = await storage().get(photo.storageKey);
-    if (!file) throw notFound("That photo's file");
-    return { bytes: file.bytes, contentType: photo.contentType, filename: photo.filename };
+    return readPhoto(user, { defectId: input.id }, input.photoId);
   },
 });
+
+/**
+ * One photo of a defect or of a pre-trip check with its bytes, found through the owner's scope
+ * (`findPhoto`): a photo the actor may not see, or whose file is gone, is "not found".
+ */
+export async function readPhoto(user: SignedIn, owner: Parameters<typeof findPhoto>[2], photoId: string) {
+  const photo = await findPhoto(db(), user, owner, photoId);
+  if (!photo) throw notFound("That photo");
+  const file = await storage().get(photo.storageKey);
+  if (!file) throw notFound("That photo's file");
+  return { bytes: file.bytes, contentType: photo.contentType, filename: photo.filename };
+}
 
 // ─── Triage ─────────────────────────────────────────────────────────────────────
 
@@ -524,12 +525,12 @@ export const moveDefect = command({
 });
 
 /**
- * POST /api/defects/{id}/moves and the triage forms: moveDefect, queued with the organisation's
- * other defect writes, so two managers at once give one result and one clear 409.
+ * POST /api/defects/{id}/moves and the triage forms: moveDefect. Two managers at once give one
+ * result and one clear 409 (the second transaction waits for the first and sees its version).
  */
 export const triageDefect = query({
   name: "defect.triage",
   input: moveDefectInput,
   permission: ["triage", "Defect"],
-  run: async ({ user, input }) => oneAtATime(defectWrites(user.orgId), () => execute(moveDefect, user, input)),
+  run: async ({ user, input }) => execute(moveDefect, user, input),
 });

@@ -401,39 +401,3 @@ export const closeJob = command({
     return { id: job.id, state: "closed" as const };
   },
 });
-
-// ─── One decision at a time per record, inside this server process ─────────────
-
-const queues = new Map<string, Promise<unknown>>();
-
-/**
- * Runs `fn` after any earlier call with the same key has settled. The local SQLite driver waits
- * for a busy database by blocking this process, so two simultaneous writers in one process would
- * time out instead of queueing; queueing them here lets the second see the first's result and
- * answer a clean 409. Separate server processes still queue on the database lock itself.
- */
-export async function oneAtATime<T>(key: string, fn: () => Promise<T>): Promise<T> {
-  const before = queues.get(key) ?? Promise.resolve();
-  const run = before.then(fn, fn);
-  const settled = run.then(
-    () => undefined,
-    () => undefined,
-  );
-  queues.set(key, settled);
-  try {
-    return await run;
-  } finally {
-    if (queues.get(key) === settled) queues.delete(key);
-  }
-}
-
-/** A route handler queued per record (see oneAtATime). */
-export function queuedHandler(
-  scope: string,
-  handler: (request: Request, context: { params: Promise<Record<string, string | string[]>> }) => Promise<Response>,
-) {
-  return async (request: Request, context: { params: Promise<Record<string, string | string[]>> }) => {
-    const params = context?.params ? await context.params : {};
-    return oneAtATime(`${scope}:${String(params.id ?? "")}`, () => handler(request, { params: Promise.resolve(params) }));
-  };
-}

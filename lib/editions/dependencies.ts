@@ -1,4 +1,5 @@
 import { InputError } from "@/lib/errors";
+import { detectCycles } from "@/lib/sequence";
 import { checkEditionLine, type EditionLine } from "@/lib/variance";
 import { lineLabel } from "./lines";
 
@@ -70,7 +71,23 @@ export function validateDependencies(
     return [...seen];
   });
 
-  // Depth-first search without recursion (long chains must not overflow the stack).
+  // Circles are found by the sequence module; this module names their lines by code and title.
+  const [cycle] = detectCycles(
+    lines.map((line) => ({ id: line.id, label: lineLabel(line), category: line.category, dependsOn: line.dependsOn, met: false })),
+  );
+  if (cycle) {
+    const first = indexOf.get(cycle.ids[0] as string) as number;
+    throw new EditionCycleError(
+      `lines.${first}.dependsOn`,
+      cycle.ids.map((id) => {
+        const l = lines[indexOf.get(id) as number] as EditionLine;
+        return { id: l.id, code: l.code, title: l.title };
+      }),
+    );
+  }
+
+  // Depth-first search without recursion (long chains must not overflow the stack); the graph
+  // has no circle, so every line is finished after the lines it depends on.
   // 0 = not seen, 1 = on the current path, 2 = done.
   const state = new Uint8Array(lines.length);
   const order: string[] = [];
@@ -93,8 +110,6 @@ export function validateDependencies(
           state[to] = 1;
           path.push(to);
           next.push(0);
-        } else if (state[to] === 1) {
-          throwCycle(lines, path.slice(path.indexOf(to)));
         }
         continue;
       }
@@ -105,18 +120,4 @@ export function validateDependencies(
     }
   }
   return { order };
-}
-
-function throwCycle(lines: readonly EditionLine[], ring: number[]): never {
-  // Start the circle at the line listed first in the edition, so the message is stable.
-  let start = 0;
-  ring.forEach((idx, pos) => {
-    if (idx < (ring[start] as number)) start = pos;
-  });
-  const rotated = [...ring.slice(start), ...ring.slice(0, start)];
-  const cycle = rotated.map((idx) => {
-    const l = lines[idx] as EditionLine;
-    return { id: l.id, code: l.code, title: l.title };
-  });
-  throw new EditionCycleError(`lines.${rotated[0]}.dependsOn`, cycle);
 }

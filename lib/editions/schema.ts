@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { CRITERION_OPS, EVIDENCE_KINDS, LINE_CATEGORIES, REQUIREMENTS, ZONES } from "@/lib/variance";
+import { CRITERION_OPS, EVIDENCE_KINDS, LINE_CATEGORIES, MASS_KINDS, REQUIREMENTS, ZONES } from "@/lib/variance";
 
 /**
  * Input schema for one line of a draft edition (every field of EditionLine but its id, which the
@@ -81,7 +81,7 @@ export const editionLineInputSchema = z
       .nullable()
       .default(null),
     zone: z.enum(ZONES, { error: `zone must be one of ${ZONES.join(", ")}` }).nullable().default(null),
-    massKind: z.enum(["constant", "variable"], { error: "massKind must be constant or variable" }),
+    massKind: z.enum(MASS_KINDS, { error: "massKind must be constant or variable" }),
     criteria: z.array(criterionInputSchema).max(20, { error: "at most 20 criteria per line" }).default([]),
     evidenceNeeded: z
       .array(z.enum(EVIDENCE_KINDS, { error: `evidence kind must be one of ${EVIDENCE_KINDS.join(", ")}` }))

@@ -4,7 +4,11 @@ import type { QuoteState } from "./quote-states";
 export const DECISIONS = ["accept", "decline", "return"] as const;
 export type Decision = (typeof DECISIONS)[number];
 
-export const DECISION_LABELS: Readonly<Record<Decision | "finance_approve" | "finance_decline", string>> = {
+/** Every decision the record keeps: the manager's three and finance's two. */
+export const RECORDED_DECISIONS = [...DECISIONS, "finance_approve", "finance_decline"] as const;
+export type RecordedDecision = (typeof RECORDED_DECISIONS)[number];
+
+export const DECISION_LABELS: Readonly<Record<RecordedDecision, string>> = {
   accept: "Accepted",
   decline: "Declined",
   return: "Returned for changes",

@@ -41,6 +41,9 @@ export type Criterion = {
 export const EVIDENCE_KINDS = ["photo", "certificate", "weighbridge_ticket", "engineering_signoff"] as const;
 export type EvidenceKind = (typeof EVIDENCE_KINDS)[number];
 
+export const MASS_KINDS = ["constant", "variable"] as const;
+export type MassKind = (typeof MASS_KINDS)[number];
+
 export type EvidenceStatus = "lodged" | "accepted" | "rejected";
 
 /** One line of an edition of a fit-out standard. */
@@ -57,7 +60,7 @@ export type EditionLine = {
   /** Distance of the item's centre of mass behind the front axle; negative is ahead of it. */
   xMm: number | null;
   zone: Zone | null;
-  massKind: "constant" | "variable";
+  massKind: MassKind;
   criteria: Criterion[];
   evidenceNeeded: EvidenceKind[];
   /** Standard cost of the whole line (all of its quantity), fitted. */

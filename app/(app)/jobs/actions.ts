@@ -3,7 +3,7 @@
 import { revalidatePath } from "next/cache";
 import { redirect } from "next/navigation";
 import { reviewEvidence } from "@/lib/commands/evidence";
-import { cancelJob, closeJob, offerJob, oneAtATime, progressJob, raiseJob, signOffJob } from "@/lib/commands/jobs";
+import { cancelJob, closeJob, offerJob, progressJob, raiseJob, signOffJob } from "@/lib/commands/jobs";
 import { runFormAction } from "@/lib/server/actions";
 import type { FormState } from "@/lib/server/form-state";
 
@@ -29,27 +29,25 @@ export async function raiseJobAction(_prev: FormState, formData: FormData) {
 }
 
 export async function offerJobAction(_prev: FormState, formData: FormData) {
-  const state = await oneAtATime(`job:${idOf(formData)}`, () => runFormAction(offerJob, formData, (r) => `Offered to ${r.offeredTo} ${r.offeredTo === 1 ? "workshop" : "workshops"}`));
+  const state = await runFormAction(offerJob, formData, (r) => `Offered to ${r.offeredTo} ${r.offeredTo === 1 ? "workshop" : "workshops"}`);
   if (state.status === "ok") refresh(idOf(formData));
   return state;
 }
 
 export async function cancelJobAction(_prev: FormState, formData: FormData) {
-  const state = await oneAtATime(`job:${idOf(formData)}`, () => runFormAction(cancelJob, formData, "Job cancelled"));
+  const state = await runFormAction(cancelJob, formData, "Job cancelled");
   if (state.status === "ok") refresh(idOf(formData));
   return state;
 }
 
 export async function progressJobAction(_prev: FormState, formData: FormData) {
-  const state = await oneAtATime(`job:${idOf(formData)}`, () =>
-    runFormAction(progressJob, formData, (r) => (r.state === "in_workshop" ? "Work started" : "Evidence marked as lodged")),
-  );
+  const state = await runFormAction(progressJob, formData, (r) => (r.state === "in_workshop" ? "Work started" : "Evidence marked as lodged"));
   if (state.status === "ok") refresh(idOf(formData));
   return state;
 }
 
 export async function signOffJobAction(_prev: FormState, formData: FormData) {
-  const state = await oneAtATime(`job:${idOf(formData)}`, () => runFormAction(signOffJob, formData, "Job signed off; the cost is booked"));
+  const state = await runFormAction(signOffJob, formData, "Job signed off; the cost is booked");
   if (state.status === "ok") {
     refresh(idOf(formData));
     revalidatePath("/costs");
@@ -58,15 +56,13 @@ export async function signOffJobAction(_prev: FormState, formData: FormData) {
 }
 
 export async function closeJobAction(_prev: FormState, formData: FormData) {
-  const state = await oneAtATime(`job:${idOf(formData)}`, () => runFormAction(closeJob, formData, "Job closed"));
+  const state = await runFormAction(closeJob, formData, "Job closed");
   if (state.status === "ok") refresh(idOf(formData));
   return state;
 }
 
 export async function reviewEvidenceAction(_prev: FormState, formData: FormData) {
-  const state = await oneAtATime(`evidence:${idOf(formData)}`, () =>
-    runFormAction(reviewEvidence, formData, (r) => (r.status === "accepted" ? "Evidence accepted" : "Evidence rejected")),
-  );
+  const state = await runFormAction(reviewEvidence, formData, (r) => (r.status === "accepted" ? "Evidence accepted" : "Evidence rejected"));
   const jobId = String(formData.get("jobId") ?? "");
   if (state.status === "ok" && jobId) refresh(jobId);
   return state;

@@ -1,7 +1,6 @@
-import { queuedHandler } from "@/lib/commands/jobs";
 import { cancelJob } from "@/lib/commands/jobs";
 import { routeHandler } from "@/lib/server/route";
 import { bodyWithId } from "../../body";
 
 /** Body: `{ reason }`. */
-export const POST = queuedHandler("job", routeHandler(cancelJob, bodyWithId));
+export const POST = routeHandler(cancelJob, bodyWithId);

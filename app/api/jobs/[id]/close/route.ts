@@ -1,7 +1,6 @@
-import { queuedHandler } from "@/lib/commands/jobs";
 import { closeJob } from "@/lib/commands/jobs";
 import { routeHandler } from "@/lib/server/route";
 import { bodyWithId } from "../../body";
 
 /** Body: `{}`. */
-export const POST = queuedHandler("job", routeHandler(closeJob, bodyWithId));
+export const POST = routeHandler(closeJob, bodyWithId);

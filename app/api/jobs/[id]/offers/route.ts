@@ -1,7 +1,6 @@
-import { queuedHandler } from "@/lib/commands/jobs";
 import { offerJob } from "@/lib/commands/jobs";
 import { routeHandler } from "@/lib/server/route";
 import { bodyWithId } from "../../body";
 
 /** Body: `{ firmIds: [...], dueAt }`. */
-export const POST = queuedHandler("job", routeHandler(offerJob, bodyWithId));
+export const POST = routeHandler(offerJob, bodyWithId);

@@ -1,7 +1,6 @@
-import { queuedHandler } from "@/lib/commands/jobs";
 import { signOffJob } from "@/lib/commands/jobs";
 import { routeHandler } from "@/lib/server/route";
 import { bodyWithId } from "../../body";
 
 /** Body: `{ version? } — books the cost`. */
-export const POST = queuedHandler("job", routeHandler(signOffJob, bodyWithId));
+export const POST = routeHandler(signOffJob, bodyWithId);

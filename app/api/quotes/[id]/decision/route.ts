@@ -1,7 +1,6 @@
-import { queuedHandler } from "@/lib/commands/jobs";
 import { decideQuote } from "@/lib/commands/quotes";
 import { routeHandler } from "@/lib/server/route";
 import { bodyWithId } from "../../../jobs/body";
 
 /** Body: `{ decision: "accept" | "decline" | "return", reason, version }`. */
-export const POST = queuedHandler("quote", routeHandler(decideQuote, bodyWithId));
+export const POST = routeHandler(decideQuote, bodyWithId);

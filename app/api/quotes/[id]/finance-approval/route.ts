@@ -1,7 +1,6 @@
-import { queuedHandler } from "@/lib/commands/jobs";
 import { financeApproval } from "@/lib/commands/quotes";
 import { routeHandler } from "@/lib/server/route";
 import { bodyWithId } from "../../../jobs/body";
 
 /** Body: `{ approve: true | false, reason, version }`. */
-export const POST = queuedHandler("quote", routeHandler(financeApproval, bodyWithId));
+export const POST = routeHandler(financeApproval, bodyWithId);

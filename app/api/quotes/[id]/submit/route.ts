@@ -1,7 +1,6 @@
-import { queuedHandler } from "@/lib/commands/jobs";
 import { submitQuote } from "@/lib/commands/quotes";
 import { routeHandler } from "@/lib/server/route";
 import { bodyWithId } from "../../../jobs/body";
 
 /** Body: `{ version? }`. */
-export const POST = queuedHandler("quote", routeHandler(submitQuote, bodyWithId));
+export const POST = routeHandler(submitQuote, bodyWithId);

@@ -1,7 +1,6 @@
-import { queuedHandler } from "@/lib/commands/jobs";
 import { withdrawQuote } from "@/lib/commands/quotes";
 import { routeHandler } from "@/lib/server/route";
 import { bodyWithId } from "../../../jobs/body";
 
 /** Body: `{ reason? }`. */
-export const POST = queuedHandler("quote", routeHandler(withdrawQuote, bodyWithId));
+export const POST = routeHandler(withdrawQuote, bodyWithId);
