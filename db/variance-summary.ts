@@ -61,8 +61,8 @@ export type SummaryReadStats = { stored: number; judged: number; written: number
 export type SummaryReadOptions = {
   /** Filled in with what the read did (the benchmark and tests look). */
   stats?: SummaryReadStats;
-  /** Tests only: runs between a refresh's claim and its judgement, to change rows meanwhile. */
-  afterClaim?: () => Promise<void>;
+  /** Tests only: runs after a refresh has judged and before it writes, to change rows meanwhile. */
+  beforeWrite?: () => Promise<void>;
 };
 
 type Judged = Pick<VehicleVarianceFigures, "editionId" | "status" | "summary" | "costToCloseCents" | "massToCloseKg"> & {
@@ -143,11 +143,11 @@ async function judgeAndStore(db: DbOrTx, actor: Actor, ids: readonly string[], n
     warnOnce("claim", error);
   }
 
-  if (options.afterClaim) await options.afterClaim();
   const judged = new Map<string, Judged>();
   for (const loaded of await loadVariancesFor(db, actor, ids, now)) judged.set(loaded.vehicleId, judgedOf(loaded, nowMs));
 
   if (claimed) {
+    if (options.beforeWrite) await options.beforeWrite();
     const rows = [...judged]
       .filter(([, j]) => j.editionId !== null && j.summary !== null && j.status !== "no_edition")
       .map(([id, j]) => {
