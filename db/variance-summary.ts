@@ -2,7 +2,6 @@ import { and, inArray, sql, type SQL } from "drizzle-orm";
 import type { Actor } from "@/lib/permissions";
 import {
   rollUpFleet,
-  statusOfSummary,
   vehicleFigures,
   type FleetVariance,
   type VarianceSummary,
@@ -70,8 +69,9 @@ type Judged = Pick<VehicleVarianceFigures, "editionId" | "status" | "summary" | 
 };
 
 /**
- * [id, fleet number, depot, platform, edition, then the stored row: edition, status, the seven
- * counts, cost in cents, mass in grams, computed at, valid until].
+ * One vehicle as the fleet read packs it: [id, fleet number, depot, platform, edition, current
+ * (1 when its stored row holds at now, else 0), then the stored row's status, the seven counts,
+ * cost in cents and mass in grams (null when not current)].
  */
 type PackedRow = [
   string,
@@ -79,8 +79,8 @@ type PackedRow = [
   string | null,
   string,
   string | null,
-  string | null,
-  VehicleVarianceStatus | null,
+  0 | 1,
+  VehicleVarianceStatus,
   number,
   number,
   number,
@@ -90,8 +90,6 @@ type PackedRow = [
   number,
   number,
   number,
-  number | null,
-  number | null,
 ];
 
 /** The earliest instant after `nowMs` at which time alone changes this vehicle's judgement. */
@@ -191,52 +189,56 @@ function warnOnce(step: string, error: unknown): void {
 async function figuresWhere(db: DbOrTx, actor: Actor, where: SQL, now: Date, options: SummaryReadOptions): Promise<VehicleVarianceFigures[]> {
   const nowMs = now.getTime();
   const s = vehicleVarianceSummaries;
+  // A stored row holds when it is judged (not a bare claim), for the vehicle's current edition,
+  // at or before now, and time has not yet reached its valid_until.
+  const current = sql`(${s.status} is not null and ${s.editionId} = ${vehicles.editionId} and ${s.computedAt} <= ${nowMs} and (${s.validUntil} is null or ${s.validUntil} > ${nowMs}))`;
   const pack = await db.get<{ j: string | null }>(sql`
-    select json_group_array(json_array(id, fleet_number, depot_id, platform_id, edition_id, s_edition_id, status, meets, short, off_spec,
-      unproven, concession, prohibited_fitted, extra, cost_to_close_cents, mass_to_close_g, computed_at, valid_until)) as j
+    select json_group_array(case when current then json_array(id, fleet_number, depot_id, platform_id, edition_id, 1, status, meets, short, off_spec,
+        unproven, concession, prohibited_fitted, extra, cost_to_close_cents, mass_to_close_g)
+      else json_array(id, fleet_number, depot_id, platform_id, edition_id, 0) end) as j
     from (
       select ${vehicles.id} as id, ${vehicles.fleetNumber} as fleet_number, ${vehicles.depotId} as depot_id, ${vehicles.platformId} as platform_id,
-        ${vehicles.editionId} as edition_id, ${s.editionId} as s_edition_id, ${s.status} as status, ${s.meets} as meets, ${s.short} as short,
+        ${vehicles.editionId} as edition_id, coalesce(${current}, 0) as current, ${s.status} as status, ${s.meets} as meets, ${s.short} as short,
         ${s.offSpec} as off_spec, ${s.unproven} as unproven, ${s.concession} as concession, ${s.prohibitedFitted} as prohibited_fitted,
-        ${s.extra} as extra, ${s.costToCloseCents} as cost_to_close_cents, ${s.massToCloseG} as mass_to_close_g, ${s.computedAt} as computed_at,
-        ${s.validUntil} as valid_until
+        ${s.extra} as extra, ${s.costToCloseCents} as cost_to_close_cents, ${s.massToCloseG} as mass_to_close_g
       from ${vehicles} left join ${s} on ${s.vehicleId} = ${vehicles.id}
       where ${where}
       order by ${vehicles.fleetNumber}
     )`);
   const rows = pack?.j ? (JSON.parse(pack.j) as PackedRow[]) : [];
 
-  const stale = new Set<string>();
-  for (const r of rows) {
-    const [, , , , editionId, storedEdition, status, , , , , , , , , , computedAt, validUntil] = r;
-    if (editionId === null) continue;
-    const current = status !== null && storedEdition === editionId && computedAt !== null && computedAt <= nowMs && (validUntil === null || validUntil > nowMs);
-    if (!current) stale.add(r[0]);
-  }
-  const judged = stale.size > 0 ? await judgeAndStore(db, actor, [...stale], now, options) : new Map<string, Judged>();
+  const stale: string[] = [];
+  for (const r of rows) if (r[4] !== null && r[5] === 0) stale.push(r[0]);
+  const judged = stale.length > 0 ? await judgeAndStore(db, actor, stale, now, options) : null;
   if (options.stats) {
-    options.stats.judged += stale.size;
-    options.stats.stored += rows.length - stale.size;
+    options.stats.judged += stale.length;
+    options.stats.stored += rows.length - stale.length;
   }
 
   const out: VehicleVarianceFigures[] = [];
   for (const r of rows) {
-    const [vehicleId, fleetNumber, depotId, platformId, editionId, , , meets, short, offSpec, unproven, concession, prohibitedFitted, extra, cost, massG] = r;
-    const base = { vehicleId, fleetNumber, depotId, platformId };
+    const editionId = r[4];
     if (editionId === null) {
-      out.push({ ...base, editionId: null, ...vehicleFigures(null) });
-      continue;
-    }
-    if (stale.has(vehicleId)) {
-      const fresh = judged.get(vehicleId);
+      out.push({ vehicleId: r[0], fleetNumber: r[1], depotId: r[2], platformId: r[3], editionId: null, status: "no_edition", summary: null, costToCloseCents: 0, massToCloseKg: 0 });
+    } else if (r[5] === 1) {
+      out.push({
+        vehicleId: r[0],
+        fleetNumber: r[1],
+        depotId: r[2],
+        platformId: r[3],
+        editionId,
+        status: r[6],
+        summary: { meets: r[7], short: r[8], offSpec: r[9], unproven: r[10], concession: r[11], prohibitedFitted: r[12], extra: r[13] },
+        costToCloseCents: r[14],
+        massToCloseKg: r[15] / 1000,
+      });
+    } else {
+      const fresh = judged?.get(r[0]);
       // Judged again but gone by then (deleted, or no longer visible): left out, as the full loader would.
-      if (fresh) {
-        out.push({ ...base, editionId: fresh.editionId, status: fresh.status, summary: fresh.summary, costToCloseCents: fresh.costToCloseCents, massToCloseKg: fresh.massToCloseKg });
-      }
-      continue;
+      if (!fresh) continue;
+      const { editionId: judgedEdition, status, summary, costToCloseCents, massToCloseKg } = fresh;
+      out.push({ vehicleId: r[0], fleetNumber: r[1], depotId: r[2], platformId: r[3], editionId: judgedEdition, status, summary, costToCloseCents, massToCloseKg });
     }
-    const summary: VarianceSummary = { meets, short, offSpec, unproven, concession, prohibitedFitted, extra };
-    out.push({ ...base, editionId, status: statusOfSummary(summary), summary, costToCloseCents: cost, massToCloseKg: massG / 1000 });
   }
   return out;
 }
@@ -253,9 +255,8 @@ export async function loadFleetVarianceFigures(
   options: SummaryReadOptions = {},
 ): Promise<FleetVarianceFigures> {
   const details = await figuresWhere(db, actor, filterWhere(actor, filter), now, options);
-  const fleet = rollUpFleet(
-    details.map((d) => ({ vehicleId: d.vehicleId, depotId: d.depotId, platformId: d.platformId, summary: d.summary, costToCloseCents: d.costToCloseCents, massToCloseKg: d.massToCloseKg })),
-  );
+  // The figures carry every field the roll-up reads; they come from this module, already checked.
+  const fleet = rollUpFleet(details, false);
   return { ...fleet, details };
 }
 
