@@ -456,6 +456,8 @@ export const vehicleVarianceSummaries = sqliteTable(
     validUntil: integer("valid_until", { mode: "timestamp_ms" }),
     /** The refresh that claimed the row (it writes its figures only while its claim stands). */
     claim: text("claim"),
+    /** The version of the judgement's rules the figures were made by (SUMMARY_RULES_VERSION). */
+    rulesVersion: integer("rules_version").notNull().default(0),
   },
   (t) => [index("vehicle_variance_summaries_org").on(t.orgId), index("vehicle_variance_summaries_edition").on(t.editionId)],
 );

@@ -34,6 +34,14 @@ import { filterWhere, loadVariancesFor, type LoadedVehicleVariance, type Varianc
  * a trigger that deletes the placeholder, so figures judged from older rows are never stored.
  */
 
+/**
+ * The version of the rules the stored figures were judged by. Rows of another version are never
+ * read as current, so raise this whenever a change to lib/variance or to the mapping in
+ * db/variance.ts could change any vehicle's status, counts, cost or mass: every row is then
+ * judged again on its next read.
+ */
+export const SUMMARY_RULES_VERSION = 1;
+
 /** One vehicle's variance figures, as the fleet view and the export show them. */
 export type VehicleVarianceFigures = {
   vehicleId: string;
@@ -128,13 +136,13 @@ async function judgeAndStore(db: DbOrTx, actor: Actor, ids: readonly string[], n
   let claimed = false;
   try {
     await db.run(sql`
-      insert into ${vehicleVarianceSummaries} (vehicle_id, org_id, edition_id, status, computed_at, valid_until, claim)
-      select v.id, v.org_id, v.edition_id, null, ${nowMs}, null, ${claim}
+      insert into ${vehicleVarianceSummaries} (vehicle_id, org_id, edition_id, status, computed_at, valid_until, claim, rules_version)
+      select v.id, v.org_id, v.edition_id, null, ${nowMs}, null, ${claim}, ${SUMMARY_RULES_VERSION}
       from ${vehicles} v
       where v.id in (select value from json_each(${idList})) and v.edition_id is not null
       on conflict (vehicle_id) do update set
         org_id = excluded.org_id, edition_id = excluded.edition_id, status = null,
-        computed_at = excluded.computed_at, valid_until = null, claim = excluded.claim`);
+        computed_at = excluded.computed_at, valid_until = null, claim = excluded.claim, rules_version = excluded.rules_version`);
     claimed = true;
   } catch (error) {
     // Busy or read-only: judge anyway, store nothing.
@@ -189,9 +197,10 @@ function warnOnce(step: string, error: unknown): void {
 async function figuresWhere(db: DbOrTx, actor: Actor, where: SQL, now: Date, options: SummaryReadOptions): Promise<VehicleVarianceFigures[]> {
   const nowMs = now.getTime();
   const s = vehicleVarianceSummaries;
-  // A stored row holds when it is judged (not a bare claim), for the vehicle's current edition,
-  // at or before now, and time has not yet reached its valid_until.
-  const current = sql`(${s.status} is not null and ${s.editionId} = ${vehicles.editionId} and ${s.computedAt} <= ${nowMs} and (${s.validUntil} is null or ${s.validUntil} > ${nowMs}))`;
+  // A stored row holds when it is judged (not a bare claim) by these rules, for the vehicle's
+  // current edition, at or before now, and time has not yet reached its valid_until.
+  const current = sql`(${s.status} is not null and ${s.rulesVersion} = ${SUMMARY_RULES_VERSION} and ${s.editionId} = ${vehicles.editionId}
+    and ${s.computedAt} <= ${nowMs} and (${s.validUntil} is null or ${s.validUntil} > ${nowMs}))`;
   const pack = await db.get<{ j: string | null }>(sql`
     select json_group_array(case when current then json_array(id, fleet_number, depot_id, platform_id, edition_id, 1, status, meets, short, off_spec,
         unproven, concession, prohibited_fitted, extra, cost_to_close_cents, mass_to_close_g)

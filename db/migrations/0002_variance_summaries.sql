@@ -15,6 +15,7 @@ CREATE TABLE `vehicle_variance_summaries` (
 	`computed_at` integer NOT NULL,
 	`valid_until` integer,
 	`claim` text,
+	`rules_version` integer DEFAULT 0 NOT NULL,
 	FOREIGN KEY (`vehicle_id`) REFERENCES `vehicles`(`id`) ON UPDATE no action ON DELETE cascade,
 	FOREIGN KEY (`org_id`) REFERENCES `organisations`(`id`) ON UPDATE no action ON DELETE cascade,
 	FOREIGN KEY (`edition_id`) REFERENCES `editions`(`id`) ON UPDATE no action ON DELETE cascade

@@ -2,7 +2,7 @@ import { and, eq, inArray, ne, sql } from "drizzle-orm";
 import { beforeAll, describe, expect, it, vi } from "vitest";
 import { concessions, depots, editionLines, editions, evidence, fitments, jobs, lineDependencies, vehicles, vehicleVarianceSummaries } from "@/db/schema";
 import { loadFleetVariance, type VarianceFilter } from "@/db/variance";
-import { loadFleetVarianceFigures, varianceStatusByVehicle, type SummaryReadStats } from "@/db/variance-summary";
+import { loadFleetVarianceFigures, SUMMARY_RULES_VERSION, varianceStatusByVehicle, type SummaryReadStats } from "@/db/variance-summary";
 import { grantConcession, recordFitment, removeFitment } from "@/lib/commands/fitments";
 import { getFleetVariance } from "@/lib/commands/variance";
 import { confirmRollout, publishEdition, startDraft, updateLine } from "@/lib/commands/standards";
@@ -406,6 +406,14 @@ describe("writing summaries back", () => {
       warn.mockRestore();
     }
     expect((await expectRejudgedThenStored()).judged).toBe(1);
+  });
+
+  it("a row judged by other rules is judged again", async () => {
+    await expectSameAsFull();
+    const mh002 = await idOf("MH-002");
+    await database.update(vehicleVarianceSummaries).set({ rulesVersion: SUMMARY_RULES_VERSION - 1, meets: 0 }).where(eq(vehicleVarianceSummaries.vehicleId, mh002));
+    expect((await expectRejudgedThenStored()).judged).toBe(1);
+    expect((await rowOf(mh002))!.rulesVersion).toBe(SUMMARY_RULES_VERSION);
   });
 
   it("inside a transaction the summaries are written with it, and undone with it", async () => {
