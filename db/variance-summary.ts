@@ -190,7 +190,7 @@ const warned = new Set<string>();
 function warnOnce(step: string, error: unknown): void {
   if (warned.has(step)) return;
   warned.add(step);
-  console.warn(`variance summaries: the ${step} step failed; figures were judged in full instead`, error);
+  console.warn(`variance summaries: the ${step} step failed; the figures were judged in full and not stored`, error);
 }
 
 /** Figures of the vehicles matched by `where` (already scoped to the actor), in fleet-number order. */
