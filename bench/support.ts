@@ -36,7 +36,8 @@ export type BenchResult = {
   ratio: number;
   ratioLabel: string;
   target: string;
-  met: boolean;
+  /** null: printed for comparison, not judged against a target. */
+  met: boolean | null;
 };
 
 export function report(results: BenchResult[]): void {
@@ -44,7 +45,8 @@ export function report(results: BenchResult[]): void {
     console.log(`\n${r.name}`);
     console.log(`  measured : ${r.figure}`);
     console.log(`  baseline : ${r.baseline}`);
-    console.log(`  ratio    : ${r.ratio.toFixed(2)} ${r.ratioLabel}`);
-    console.log(`  target   : ${r.target} → ${r.met ? "met" : "NOT met"}`);
+    // Small ratios keep their significant digits (0.004, not 0.00).
+    console.log(`  ratio    : ${r.ratio < 0.1 ? r.ratio.toPrecision(2) : r.ratio.toFixed(2)} ${r.ratioLabel}`);
+    console.log(`  target   : ${r.target}${r.met === null ? "" : ` → ${r.met ? "met" : "NOT met"}`}`);
   }
 }

@@ -4,7 +4,7 @@ import type { Actor } from "@/lib/permissions";
 import type { DbOrTx } from "./client";
 import { fleetReadinessCounts } from "./readiness";
 import { budgets, costs, depots, editions, fleetSnapshots, jobs, organisations, platforms, standards, vehicles } from "./schema";
-import { loadFleetVariance } from "./variance";
+import { loadFleetVarianceFigures } from "./variance-summary";
 
 /**
  * The cost ledger, budgets and daily fleet figures. Every query is inside the actor's
@@ -303,7 +303,7 @@ export async function recordFleetSnapshot(db: DbOrTx, orgId: string, snapshot: F
 export async function fleetFiguresNow(db: DbOrTx, orgId: string, now: Date): Promise<FleetSnapshot> {
   // The figures are the whole organisation's, whoever asks: an organisation-wide view.
   const orgWide: Actor = { userId: "fleet-snapshot", orgId, role: "admin", firmId: null, depotId: null };
-  const [readiness, variance] = await Promise.all([fleetReadinessCounts(db, orgWide, now), loadFleetVariance(db, orgWide, {}, now)]);
+  const [readiness, variance] = await Promise.all([fleetReadinessCounts(db, orgWide, now), loadFleetVarianceFigures(db, orgWide, {}, now)]);
   const gaps = variance.statusCounts;
   return {
     day: now.toISOString().slice(0, 10),

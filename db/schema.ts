@@ -407,6 +407,48 @@ export const concessions = sqliteTable(
   (t) => [index("concessions_vehicle").on(t.vehicleId)],
 );
 
+/**
+ * Each vehicle's variance figures as last judged (db/variance-summary.ts), so the fleet view
+ * reads one row per vehicle instead of every fitment. A cache, never the truth: the triggers of
+ * migration `variance_summary_triggers` delete a vehicle's row whenever anything the judgement
+ * reads changes, and a row is used only while `computedAt <= now < validUntil` (`validUntil` =
+ * the next instant at which time alone changes the judgement: a fitment fitted, removed or
+ * expiring, a concession lapsing; null when nothing is due). A row with a null status is a
+ * refresh's claim, not yet judged.
+ */
+export const vehicleVarianceSummaries = sqliteTable(
+  "vehicle_variance_summaries",
+  {
+    vehicleId: text("vehicle_id")
+      .primaryKey()
+      .references(() => vehicles.id, { onDelete: "cascade" }),
+    orgId: orgRef(),
+    /** The edition the figures were judged against. */
+    editionId: text("edition_id")
+      .notNull()
+      .references(() => editions.id, { onDelete: "cascade" }),
+    status: text("status", { enum: ["meets_standard", "gaps"] }),
+    meets: integer("meets").notNull().default(0),
+    short: integer("short").notNull().default(0),
+    offSpec: integer("off_spec").notNull().default(0),
+    unproven: integer("unproven").notNull().default(0),
+    concession: integer("concession").notNull().default(0),
+    prohibitedFitted: integer("prohibited_fitted").notNull().default(0),
+    extra: integer("extra").notNull().default(0),
+    costToCloseCents: integer("cost_to_close_cents").notNull().default(0),
+    /** Mass to close, in whole grams (the fleet figures are reported to the gram). */
+    massToCloseG: integer("mass_to_close_g").notNull().default(0),
+    /** The instant the figures were judged at. */
+    computedAt: integer("computed_at", { mode: "timestamp_ms" }).notNull(),
+    validUntil: integer("valid_until", { mode: "timestamp_ms" }),
+    /** The refresh that claimed the row (it writes its figures only while its claim stands). */
+    claim: text("claim"),
+    /** The version of the judgement's rules the figures were made by (SUMMARY_RULES_VERSION). */
+    rulesVersion: integer("rules_version").notNull().default(0),
+  },
+  (t) => [index("vehicle_variance_summaries_org").on(t.orgId), index("vehicle_variance_summaries_edition").on(t.editionId)],
+);
+
 /** What-if items: planned but not fitted, shown in the mass planner before anything is bought. */
 export const plannedItems = sqliteTable(
   "planned_items",

@@ -2,7 +2,6 @@ import { and, asc, eq, inArray, isNotNull, isNull, ne, sql, type SQL } from "dri
 import { isScoped, type Actor } from "@/lib/permissions";
 import {
   fleetVariance,
-  varianceStatus,
   vehicleVariance,
   type Concession,
   type EditionLine,
@@ -11,7 +10,6 @@ import {
   type FleetVariance,
   type Fitment,
   type VehicleVariance,
-  type VehicleVarianceStatus,
 } from "@/lib/variance";
 import type { DbOrTx } from "./client";
 import { concessions, editionLines, editions, evidence, fitments, jobs, lineDependencies, vehicles } from "./schema";
@@ -308,7 +306,8 @@ export function toEditionLine(row: typeof editionLines.$inferSelect, dependsOn: 
   };
 }
 
-function filterWhere(actor: Actor, filter: VarianceFilter = {}): SQL {
+/** The vehicles a fleet read covers: the actor's scope, the filter, retired ones left out unless asked for. */
+export function filterWhere(actor: Actor, filter: VarianceFilter = {}): SQL {
   const parts: SQL[] = [vehicleScope(actor)];
   if (!filter.includeRetired && filter.state !== "retired") parts.push(ne(vehicles.state, "retired"));
   if (filter.state) parts.push(eq(vehicles.state, filter.state));
@@ -365,17 +364,5 @@ export async function loadVariancesFor(
   return loadVariances(db, actor.orgId, and(vehicleScope(actor), inArray(vehicles.id, ids))!, now, vehicleIds.length < 1000);
 }
 
-/**
- * meets_standard / gaps / no_edition for each of the given vehicles the actor may see (ids it
- * may not see are simply absent), for filtering and badging a register page.
- */
-export async function varianceStatusByVehicle(
-  db: DbOrTx,
-  actor: Actor,
-  vehicleIds: readonly string[],
-  now: Date,
-): Promise<Map<string, VehicleVarianceStatus>> {
-  const out = new Map<string, VehicleVarianceStatus>();
-  for (const d of await loadVariancesFor(db, actor, vehicleIds, now)) out.set(d.vehicleId, varianceStatus(d.variance));
-  return out;
-}
+// The register's status filter reads the stored summaries (db/variance-summary.ts).
+export { varianceStatusByVehicle } from "./variance-summary";

@@ -20,7 +20,7 @@ import {
 import { budgets, costs, depots, vehicles } from "@/db/schema";
 import { findVehicle } from "@/db/vehicles";
 import { InputError } from "@/lib/errors";
-import { loadFleetVariance } from "@/db/variance";
+import { loadFleetVarianceFigures } from "@/db/variance-summary";
 import { COST_CATEGORIES, COST_KINDS, COST_SOURCES, isoDay, ledgerTable, tableToCsv, tableToXlsx, varianceTable, XLSX_CONTENT_TYPE } from "@/lib/exports";
 import { gstInInclusive, gstOnExclusive, parseMoneyToCents } from "@/lib/money";
 import { AppError, conflict, forbidden, notFound } from "@/lib/server/errors";
@@ -362,21 +362,17 @@ export const exportVariance = query({
     if (!user.ability.can("read", "Variance")) throw forbidden();
     const { format, ...filter } = input;
     const database = db();
-    const [fleet, names] = await Promise.all([loadFleetVariance(database, user, filter, now), varianceNames(database, user)]);
-    const byVehicle = new Map(fleet.vehicles.map((v) => [v.vehicleId, v]));
-    const rows = fleet.details.map((d) => {
-      const result = byVehicle.get(d.vehicleId);
-      return {
-        fleetNumber: d.fleetNumber,
-        depotName: d.depotId ? (names.depot.get(d.depotId) ?? null) : null,
-        platformName: names.platform.get(d.platformId) ?? null,
-        editionName: d.editionId ? (names.edition.get(d.editionId) ?? null) : null,
-        status: result?.status ?? "no_edition",
-        summary: d.variance?.summary ?? null,
-        costToCloseCents: result?.costToCloseCents ?? 0,
-        massToCloseKg: result?.massToCloseKg ?? 0,
-      };
-    });
+    const [fleet, names] = await Promise.all([loadFleetVarianceFigures(database, user, filter, now), varianceNames(database, user)]);
+    const rows = fleet.details.map((d) => ({
+      fleetNumber: d.fleetNumber,
+      depotName: d.depotId ? (names.depot.get(d.depotId) ?? null) : null,
+      platformName: names.platform.get(d.platformId) ?? null,
+      editionName: d.editionId ? (names.edition.get(d.editionId) ?? null) : null,
+      status: d.status,
+      summary: d.summary,
+      costToCloseCents: d.costToCloseCents,
+      massToCloseKg: d.massToCloseKg,
+    }));
     const file = await writeExport(varianceTable(rows), format, now);
     return { ...file, filename: `rigline-variance-${isoDay(now)}.${format}`, rows: rows.length };
   },

@@ -3,7 +3,8 @@ import { and, asc, eq, inArray } from "drizzle-orm";
 import { z } from "zod";
 import { db } from "@/db/client";
 import { depots, editions, platforms, standards } from "@/db/schema";
-import { loadFleetVariance, loadVehicleVariance, type LoadedVehicleVariance } from "@/db/variance";
+import { loadVehicleVariance, type LoadedVehicleVariance } from "@/db/variance";
+import { loadFleetVarianceFigures } from "@/db/variance-summary";
 import { buildOrder, type LineKind, type SequenceLine } from "@/lib/sequence";
 import { varianceStatus, costToClose, type EditionLine, type LineStatus, type LineVariance } from "@/lib/variance";
 import { notFound } from "@/lib/server/errors";
@@ -156,7 +157,8 @@ export const getFleetVariance = query({
   input: z.object({ depotId: optionalId, platformId: optionalId, standardId: optionalId }),
   permission: ["read", "Variance"],
   run: async ({ user, input, now }) => {
-    const fleet = await loadFleetVariance(db(), user, input, now);
+    // Counts, status and cost per vehicle only: from the stored summaries (db/variance-summary.ts).
+    const fleet = await loadFleetVarianceFigures(db(), user, input, now);
     const depotIds = [...new Set(fleet.byDepot.map((d) => d.depotId).filter((x): x is string => x !== null))];
     const platformIds = [...new Set(fleet.byPlatform.map((p) => p.platformId).filter((x): x is string => x !== null))];
     const [depotRows, platformRows] = await Promise.all([
@@ -174,18 +176,17 @@ export const getFleetVariance = query({
     const depotName = new Map(depotRows.map((d) => [d.id, d.name]));
     const platformName = new Map(platformRows.map((p) => [p.id, `${p.make} ${p.model}${p.variant ? ` ${p.variant}` : ""}`]));
     const worst = fleet.details
-      .filter((d) => d.variance && varianceStatus(d.variance) === "gaps")
+      .filter((d) => d.summary && d.status === "gaps")
       .map((d) => {
-        const s = d.variance!.summary;
-        const close = costToClose(d.variance!);
+        const s = d.summary!;
         return {
           vehicleId: d.vehicleId,
           fleetNumber: d.fleetNumber,
           depotName: d.depotId ? (depotName.get(d.depotId) ?? null) : null,
           gaps: s.short + s.offSpec + s.unproven + s.prohibitedFitted,
           summary: s,
-          costToCloseCents: close.costCents,
-          massToCloseKg: Math.round(close.massKg * 1000) / 1000,
+          costToCloseCents: d.costToCloseCents,
+          massToCloseKg: d.massToCloseKg,
         };
       })
       .sort((a, b) => b.gaps - a.gaps || a.fleetNumber.localeCompare(b.fleetNumber));

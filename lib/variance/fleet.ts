@@ -1,4 +1,4 @@
-import { InputError } from "@/lib/errors";
+import { InputError, requireNonNegative } from "@/lib/errors";
 import { emptySummary } from "./variance";
 import type { VarianceSummary, VehicleVariance, VehicleVarianceStatus } from "./types";
 
@@ -111,7 +111,70 @@ function checkVariance(field: string, v: unknown): asserts v is VehicleVariance 
   }
 }
 
+/**
+ * One vehicle's figures as the fleet roll-up adds them: judged just now, or read back from a
+ * stored summary of the same judgement.
+ */
+export type FleetVehicleFigures = {
+  vehicleId: string;
+  depotId: string | null;
+  platformId: string | null;
+  /** Line counts by status, or null when the vehicle has no edition assigned. */
+  summary: VarianceSummary | null;
+  costToCloseCents: number;
+  /** Mass to close, already rounded to the gram. */
+  massToCloseKg: number;
+};
+
+/** The status, counts and cost of one vehicle's variance (null: no edition assigned). */
+export function vehicleFigures(variance: VehicleVariance | null | undefined): Omit<FleetVehicleFigures, "vehicleId" | "depotId" | "platformId"> & {
+  status: VehicleVarianceStatus;
+} {
+  if (variance === null || variance === undefined) return { status: "no_edition", summary: null, costToCloseCents: 0, massToCloseKg: 0 };
+  const cost = costToClose(variance);
+  return {
+    status: varianceStatus(variance),
+    summary: variance.summary,
+    costToCloseCents: cost.costCents,
+    massToCloseKg: Math.round(cost.massKg * 1000) / 1000,
+  };
+}
+
+/** The filter status from a vehicle's line counts alone (null: no edition assigned). */
+export function statusOfSummary(summary: VarianceSummary | null): VehicleVarianceStatus {
+  if (summary === null) return "no_edition";
+  return fullyMeets(summary) ? "meets_standard" : "gaps";
+}
+
+function checkVehicleId(field: string, input: { vehicleId?: unknown } | null, seen: Set<string>): void {
+  if (input === null || typeof input !== "object") throw new InputError(field, `${field} must be a vehicle`);
+  if (typeof input.vehicleId !== "string" || input.vehicleId === "") {
+    throw new InputError(`${field}.vehicleId`, `${field}.vehicleId must be non-empty text`);
+  }
+  if (seen.has(input.vehicleId)) {
+    throw new InputError(`${field}.vehicleId`, `vehicle ${input.vehicleId} appears twice`);
+  }
+  seen.add(input.vehicleId);
+}
+
 export function fleetVariance(vehicles: readonly FleetVehicleInput[]): FleetVariance {
+  if (!Array.isArray(vehicles as unknown)) throw new InputError("vehicles", "vehicles must be a list");
+  const seen = new Set<string>();
+  const figures = vehicles.map((input, i): FleetVehicleFigures => {
+    const field = `vehicles.${i}`;
+    checkVehicleId(field, input, seen);
+    if (input.variance !== null && input.variance !== undefined) checkVariance(`${field}.variance`, input.variance);
+    const { summary, costToCloseCents, massToCloseKg } = vehicleFigures(input.variance);
+    return { vehicleId: input.vehicleId, depotId: input.depotId ?? null, platformId: input.platformId ?? null, summary, costToCloseCents, massToCloseKg };
+  });
+  return rollUpFleet(figures, false);
+}
+
+/**
+ * The fleet roll-up from each vehicle's figures (fleetVariance judges them first; the fleet view
+ * reads them from stored summaries). The same figures give the same result either way.
+ */
+export function rollUpFleet(vehicles: readonly FleetVehicleFigures[], check = true): FleetVariance {
   if (!Array.isArray(vehicles as unknown)) throw new InputError("vehicles", "vehicles must be a list");
   const overall = emptyShare();
   const byDepot = new Map<string | null, ShareOfFleet>();
@@ -123,24 +186,16 @@ export function fleetVariance(vehicles: readonly FleetVehicleInput[]): FleetVari
 
   vehicles.forEach((input, i) => {
     const field = `vehicles.${i}`;
-    if (input === null || typeof input !== "object") throw new InputError(field, `${field} must be a vehicle`);
-    if (typeof input.vehicleId !== "string" || input.vehicleId === "") {
-      throw new InputError(`${field}.vehicleId`, `${field}.vehicleId must be non-empty text`);
+    if (check) {
+      checkVehicleId(field, input, seen);
+      requireNonNegative(`${field}.costToCloseCents`, input.costToCloseCents);
+      requireNonNegative(`${field}.massToCloseKg`, input.massToCloseKg);
     }
-    if (seen.has(input.vehicleId)) {
-      throw new InputError(`${field}.vehicleId`, `vehicle ${input.vehicleId} appears twice`);
-    }
-    seen.add(input.vehicleId);
     const depotId = input.depotId ?? null;
     const platformId = input.platformId ?? null;
-    let status: VehicleVarianceStatus = "no_edition";
-    let cost = { costCents: 0, massKg: 0 };
-    if (input.variance !== null && input.variance !== undefined) {
-      checkVariance(`${field}.variance`, input.variance);
-      const v = input.variance;
-      status = varianceStatus(v);
-      cost = costToClose(v);
-      const s = v.summary;
+    const status = statusOfSummary(input.summary);
+    const s = input.summary;
+    if (s !== null) {
       statusCounts.meets += s.meets;
       statusCounts.short += s.short;
       statusCounts.offSpec += s.offSpec;
@@ -155,8 +210,8 @@ export function fleetVariance(vehicles: readonly FleetVehicleInput[]): FleetVari
       depotId,
       platformId,
       status,
-      costToCloseCents: cost.costCents,
-      massToCloseKg: Math.round(cost.massKg * 1000) / 1000,
+      costToCloseCents: input.costToCloseCents,
+      massToCloseKg: input.massToCloseKg,
     };
     results.push(result);
     add(overall, result);

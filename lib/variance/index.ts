@@ -1,7 +1,7 @@
 export * from "./types";
 export { lineVariance, vehicleVariance } from "./variance";
-export { fleetVariance, varianceStatus, costToClose } from "./fleet";
-export type { FleetVariance, FleetVehicleInput, FleetVehicleResult, ShareOfFleet } from "./fleet";
+export { fleetVariance, rollUpFleet, statusOfSummary, vehicleFigures, varianceStatus, costToClose } from "./fleet";
+export type { FleetVariance, FleetVehicleFigures, FleetVehicleInput, FleetVehicleResult, ShareOfFleet } from "./fleet";
 export { evaluateCriterion, valuesEqual, normaliseText, asNumber, NOT_RECORDED } from "./criteria";
 export type { CriterionResult } from "./criteria";
 export { checkLine as checkEditionLine, checkFitment, checkConcession } from "./validate";
