@@ -31,9 +31,8 @@ export const REQUIRED_VEHICLE_FIELDS: readonly VehicleField[] = ["fleetNumber"];
 export const PLATFORM_RATING_FIELDS = ["kerbMassKg", "gvmKg", "frontAxleRatingKg", "rearAxleRatingKg"] as const;
 export type PlatformRatingField = (typeof PLATFORM_RATING_FIELDS)[number];
 
-/** Vehicle states as Rigline stores them. */
-export const VEHICLE_STATES = ["in_service", "in_fitout", "grounded", "retired"] as const;
-export type VehicleState = (typeof VEHICLE_STATES)[number];
+/** Vehicle states as Rigline stores them (one list, kept with the readiness rules). */
+export { VEHICLE_STATES, type VehicleState } from "@/lib/readiness/readiness";
 
 export interface VehicleFieldInfo {
   /** Name used in messages ("Odometer has ..."). */

@@ -24,6 +24,7 @@ import { loadFleetVarianceFigures } from "@/db/variance-summary";
 import { COST_CATEGORIES, COST_KINDS, COST_SOURCES, isoDay, ledgerTable, tableToCsv, tableToXlsx, varianceTable, XLSX_CONTENT_TYPE } from "@/lib/exports";
 import { gstInInclusive, gstOnExclusive, parseMoneyToCents } from "@/lib/money";
 import { AppError, conflict, forbidden, notFound } from "@/lib/server/errors";
+import { fileResponse } from "@/lib/server/files";
 import { command, query } from "@/lib/server/operation";
 import type { SignedIn } from "@/lib/server/session";
 
@@ -542,15 +543,6 @@ export const fleetTrends = query({
 });
 
 /** An export as a download: the right type, an attachment name, never cached. */
-export function fileResponse(file: ExportFile): Response {
-  const body = typeof file.body === "string" ? file.body : new Uint8Array(file.body);
-  return new Response(body, {
-    status: 200,
-    headers: {
-      "content-type": file.contentType,
-      "content-disposition": `attachment; filename="${file.filename}"`,
-      "cache-control": "no-store",
-      "x-rigline-rows": String(file.rows),
-    },
-  });
+export function exportResponse(file: ExportFile): Response {
+  return fileResponse({ body: file.body, contentType: file.contentType, filename: file.filename, headers: { "x-rigline-rows": String(file.rows) } });
 }

@@ -773,9 +773,3 @@ export const importTemplate = query({
   permission: ["manage", "Vehicle"],
   run: async () => vehicleImportTemplate(),
 });
-
-/** `Content-Disposition` for a download: an ASCII fallback and the exact name (RFC 6266 / 5987). */
-export function attachment(filename: string): string {
-  const ascii = filename.replace(/[^\x20-\x7e]/g, "_").replace(/["\\]/g, "_");
-  return `attachment; filename="${ascii}"; filename*=UTF-8''${encodeURIComponent(filename)}`;
-}

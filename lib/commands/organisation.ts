@@ -4,6 +4,7 @@ import { z } from "zod";
 import { db, type DbOrTx, type Tx } from "@/db/client";
 import { contractorFirms, depots, memberships, organisations, users } from "@/db/schema";
 import { renderMail } from "@/lib/mail/render";
+import { GST_METHODS } from "@/lib/money/quote";
 import { ROLES, ROLE_LABELS } from "@/lib/permissions";
 import { AppError, conflict, notFound } from "@/lib/server/errors";
 import { command, query } from "@/lib/server/operation";
@@ -313,7 +314,7 @@ export const updateSettings = command({
     springSoftMarginKg: kg("Soft spring margin", 1000),
     springStiffMarginKg: kg("Stiff spring margin", 2000),
     weighbridgeToleranceKg: kg("Weighbridge tolerance", 500),
-    gstMethod: z.enum(["per-line", "invoice-total"], { error: "Choose how GST is rounded" }),
+    gstMethod: z.enum(GST_METHODS, { error: "Choose how GST is rounded" }),
   }),
   permission: ["manage", "OrgSettings"],
   run: async ({ user, input, tx, audit }) => {

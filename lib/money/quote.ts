@@ -9,7 +9,9 @@ export type QuoteLineKind = "part" | "labour" | "other";
  * How GST is rounded across a quote (GST Act s 9-90 allows either; the result names the one
  * used so the screen and the document can say so).
  */
-export type GstMethod = "per-line" | "invoice-total";
+/** How GST is rounded on a quote: per line, or once on the invoice total. */
+export const GST_METHODS = ["per-line", "invoice-total"] as const;
+export type GstMethod = (typeof GST_METHODS)[number];
 
 const cents = (field: string) =>
   z
@@ -46,7 +48,7 @@ export const quoteLineSchema = z.discriminatedUnion("kind", [pricedLineSchema, l
 
 export const quoteTotalsInputSchema = z.object({
   lines: z.array(quoteLineSchema).max(1000),
-  method: z.enum(["per-line", "invoice-total"], { error: 'method must be "per-line" or "invoice-total"' }),
+  method: z.enum(GST_METHODS, { error: 'method must be "per-line" or "invoice-total"' }),
 });
 
 export type QuoteLineInput = z.infer<typeof quoteLineSchema>;

@@ -1,3 +1,4 @@
+import { DEFECT_SEVERITIES, type DefectSeverity } from "@/lib/defects/vocabulary";
 import { InputError, requireNonNegative } from "@/lib/errors";
 import type { Criterion, LineCategory, LineVariance, VehicleVariance } from "@/lib/variance";
 
@@ -19,8 +20,7 @@ import type { Criterion, LineCategory, LineVariance, VehicleVariance } from "@/l
 export const VEHICLE_STATES = ["in_service", "in_fitout", "grounded", "retired"] as const;
 export type VehicleState = (typeof VEHICLE_STATES)[number];
 
-export const DEFECT_SEVERITIES = ["stop", "before_next_trip", "watch"] as const;
-export type DefectSeverity = (typeof DEFECT_SEVERITIES)[number];
+export { DEFECT_SEVERITIES, type DefectSeverity };
 
 export type OpenDefect = { id: string; severity: DefectSeverity; title: string };
 export type ExpiringItem = { label: string; expiresAt: Date };

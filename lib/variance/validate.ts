@@ -1,8 +1,10 @@
 import { InputError, requireFinite, requireNonNegative } from "@/lib/errors";
+import { EVIDENCE_STATES as EVIDENCE_STATUSES } from "@/lib/jobs/evidence-states";
 import { checkCriterion } from "./criteria";
 import {
   EVIDENCE_KINDS,
   LINE_CATEGORIES,
+  MASS_KINDS,
   REQUIREMENTS,
   ZONES,
   type Concession,
@@ -59,7 +61,7 @@ export function checkLine(field: string, line: EditionLine): void {
   requireNonNegative(`${field}.massKg`, line.massKg);
   if (line.xMm !== null) requireFinite(`${field}.xMm`, line.xMm);
   if (line.zone !== null) requireOneOf(`${field}.zone`, line.zone, ZONES);
-  requireOneOf(`${field}.massKind`, line.massKind, ["constant", "variable"]);
+  requireOneOf(`${field}.massKind`, line.massKind, MASS_KINDS);
   requireArray(`${field}.criteria`, line.criteria);
   line.criteria.forEach((c, i) => checkCriterion(`${field}.criteria.${i}`, c));
   requireArray(`${field}.evidenceNeeded`, line.evidenceNeeded);
@@ -70,7 +72,6 @@ export function checkLine(field: string, line: EditionLine): void {
   if (line.expiryMonths !== null) requireIntegerAtLeast(`${field}.expiryMonths`, line.expiryMonths, 1);
 }
 
-const EVIDENCE_STATUSES: readonly string[] = ["lodged", "accepted", "rejected"];
 
 function isDate(value: unknown): boolean {
   return value instanceof Date && Number.isFinite(value.getTime());

@@ -75,7 +75,7 @@ describe("GET /api/costs/export?format=csv", () => {
     expect(status).toBe(200);
     expect(response.headers.get("content-type")).toBe("text/csv; charset=utf-8");
     expect(response.headers.get("content-disposition")).toMatch(/^attachment; filename="rigline-costs-[\d-]+\.csv"$/);
-    expect(response.headers.get("cache-control")).toBe("no-store");
+    expect(response.headers.get("cache-control")).toBe("private, no-store");
     const rows = parseCsv(await csvText(response));
     expect(rows[0]).toEqual(["Date", "Fleet no.", "Cost centre", "Depot", "Category", "Capital or operating", "Description", "Reference", "Source", "Ex GST ($)", "GST ($)", "Total incl. GST ($)"]);
     expect(rows).toHaveLength(1 + 9 + 1);

@@ -1,14 +1,8 @@
-import { attachment, importTemplate, XLSX_CONTENT_TYPE } from "@/lib/commands/imports";
+import { importTemplate, XLSX_CONTENT_TYPE } from "@/lib/commands/imports";
+import { fileResponse } from "@/lib/server/files";
 import { routeHandler } from "@/lib/server/route";
 
 /** GET /api/imports/template — the XLSX template with our headings and a notes sheet. */
 export const GET = routeHandler(importTemplate, () => ({}), {
-  respond: (bytes) =>
-    new Response(new Uint8Array(bytes), {
-      headers: {
-        "content-type": XLSX_CONTENT_TYPE,
-        "content-disposition": attachment("rigline-vehicle-import-template.xlsx"),
-        "cache-control": "private, no-store",
-      },
-    }),
+  respond: (bytes) => fileResponse({ body: bytes, contentType: XLSX_CONTENT_TYPE, filename: "rigline-vehicle-import-template.xlsx" }),
 });

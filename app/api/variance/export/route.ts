@@ -1,6 +1,6 @@
-import { exportVariance, fileResponse } from "@/lib/commands/costs";
+import { exportResponse, exportVariance } from "@/lib/commands/costs";
 import { queryParams, routeHandler } from "@/lib/server/route";
 
 export const dynamic = "force-dynamic";
 
-export const GET = routeHandler(exportVariance, (request) => queryParams(request), { respond: fileResponse });
+export const GET = routeHandler(exportVariance, (request) => queryParams(request), { respond: exportResponse });

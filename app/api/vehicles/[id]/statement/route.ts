@@ -1,4 +1,5 @@
 import { statementQuery } from "@/lib/commands/mass";
+import { fileResponse } from "@/lib/server/files";
 import { executeForRequest } from "@/lib/server/operation";
 import { jsonError, queryParams } from "@/lib/server/route";
 import { renderStatementPdf } from "@/lib/statement";
@@ -12,14 +13,7 @@ export async function GET(request: Request, context: { params: Promise<Record<st
     const params = await context.params;
     const { data, filename } = await executeForRequest(statementQuery, { ...queryParams(request), id: String(params.id ?? "") });
     const pdf = await renderStatementPdf(data);
-    return new Response(new Uint8Array(pdf), {
-      status: 200,
-      headers: {
-        "content-type": "application/pdf",
-        "content-disposition": `attachment; filename="${filename}"`,
-        "cache-control": "no-store",
-      },
-    });
+    return fileResponse({ body: pdf, contentType: "application/pdf", filename });
   } catch (error) {
     return jsonError(error);
   }

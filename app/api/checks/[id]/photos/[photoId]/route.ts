@@ -1,13 +1,9 @@
 import { readCheckPhoto } from "@/lib/commands/checks";
+import { fileResponse } from "@/lib/server/files";
 import { routeHandler } from "@/lib/server/route";
 
+/** A photo, only to users allowed to see its check; never a public address. */
 export const GET = routeHandler(readCheckPhoto, (_request, params) => ({ id: params.id, photoId: params.photoId }), {
   respond: (photo) =>
-    new Response(new Uint8Array(photo.bytes), {
-      headers: {
-        "content-type": photo.contentType,
-        "content-disposition": `inline; filename="${photo.filename.replace(/"/g, "")}"`,
-        "cache-control": "private, max-age=86400",
-      },
-    }),
+    fileResponse({ body: photo.bytes, contentType: photo.contentType, filename: photo.filename, disposition: "inline", maxAgeSeconds: 86_400 }),
 });
