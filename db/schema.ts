@@ -17,6 +17,7 @@ import {
 import { DEFECT_SEVERITIES, DEFECT_STATES } from "@/lib/defects/vocabulary";
 import { COST_KINDS, COST_SOURCES } from "@/lib/exports/labels";
 import { RECORDED_DECISIONS } from "@/lib/jobs/decisions";
+import { GST_METHODS } from "@/lib/money/quote";
 import { EVIDENCE_STATES } from "@/lib/jobs/evidence-states";
 import { JOB_STATES } from "@/lib/jobs/job-states";
 import { QUOTE_STATES } from "@/lib/jobs/quote-states";
@@ -62,7 +63,7 @@ export const organisations = sqliteTable("organisations", {
   springSoftMarginKg: real("spring_soft_margin_kg").notNull().default(0),
   springStiffMarginKg: real("spring_stiff_margin_kg").notNull().default(500),
   weighbridgeToleranceKg: real("weighbridge_tolerance_kg").notNull().default(50),
-  gstMethod: text("gst_method", { enum: ["per-line", "invoice-total"] })
+  gstMethod: text("gst_method", { enum: GST_METHODS })
     .notNull()
     .default("per-line"),
   createdAt: createdAt(),
@@ -570,7 +571,7 @@ export const quotes = sqliteTable(
     status: text("status", { enum: QUOTE_STATES }).notNull().default("draft"),
     validUntil: integer("valid_until", { mode: "timestamp_ms" }),
     notes: text("notes"),
-    gstMethod: text("gst_method", { enum: ["per-line", "invoice-total"] })
+    gstMethod: text("gst_method", { enum: GST_METHODS })
       .notNull()
       .default("per-line"),
     subtotalCents: integer("subtotal_cents").notNull().default(0),
