@@ -20,15 +20,25 @@ type PlanLine = {
   blockedBy: string[];
 };
 
+/** A triaged defect the job is raised for: its words start the job, and it is linked on raising. */
+export type RepairFor = { id: string; title: string; description: string };
+
 /** Raise a job from a vehicle's gaps: pick short / off-spec / unproven lines, add free-text work. */
-export function RaiseJobForm({ vehicleId, fleetNumber, lines }: { vehicleId: string; fleetNumber: string; lines: PlanLine[] }) {
+export function RaiseJobForm({ vehicleId, fleetNumber, lines, repairFor }: { vehicleId: string; fleetNumber: string; lines: PlanLine[]; repairFor?: RepairFor | null }) {
   const { state, formAction, errorOf, valueOf } = useFormAction(raiseJobAction);
   const gaps = lines.filter((l) => l.isGap);
   return (
     <form action={formAction} aria-label="Raise a job" className="flex flex-col gap-5" noValidate>
       <input type="hidden" name="vehicleId" value={vehicleId} />
+      {repairFor && <input type="hidden" name="defectId" value={repairFor.id} />}
+      {repairFor && (
+        <p className="rounded-md border border-line bg-surface-sunken p-3 text-sm" data-testid="repair-for">
+          This job repairs the reported defect <span className="font-semibold">{repairFor.title}</span>. Raising it links the defect and marks it in repair.
+        </p>
+      )}
+      {errorOf("defectId") && <p className="text-sm font-semibold text-danger">{errorOf("defectId")}</p>}
       <Field label="Title" error={errorOf("title")} required id="job-title">
-        <Input name="title" defaultValue={valueOf("title", `Close the gaps on ${fleetNumber}`)} />
+        <Input name="title" defaultValue={valueOf("title", repairFor ? `Repair: ${repairFor.title}` : `Close the gaps on ${fleetNumber}`)} />
       </Field>
       <fieldset className="flex flex-col gap-2">
         <legend className="mb-1 font-semibold">Lines to close</legend>
@@ -73,14 +83,14 @@ export function RaiseJobForm({ vehicleId, fleetNumber, lines }: { vehicleId: str
         <p className="text-sm text-muted">A blocked line can be raised, but it is awarded only with its prerequisites in the same job or once they are met.</p>
       </fieldset>
       <Field label="Other work" hint="One item per line, in plain words" error={errorOf("freeText")} id="job-free-text">
-        <Textarea name="freeTextBlock" rows={3} defaultValue={valueOf("freeTextBlock")} />
+        <Textarea name="freeTextBlock" rows={3} defaultValue={valueOf("freeTextBlock", repairFor ? repairFor.description : undefined)} />
       </Field>
       <div className="grid grid-cols-1 gap-4 md:grid-cols-2">
         <Field label="Wanted by" error={errorOf("dueAt")} id="job-due">
           <Input name="dueAt" type="date" defaultValue={valueOf("dueAt")} />
         </Field>
         <Field label="Booked as" error={errorOf("costKind")} id="job-cost-kind">
-          <Select name="costKind" defaultValue={valueOf("costKind", "capital")}>
+          <Select name="costKind" defaultValue={valueOf("costKind", repairFor ? "operating" : "capital")}>
             <option value="capital">Capital (fit-out)</option>
             <option value="operating">Operating (repair, upkeep)</option>
           </Select>

@@ -35,7 +35,7 @@ import {
 } from "@/lib/defects";
 import { renderMail } from "@/lib/mail/render";
 import { AppError, conflict, notFound } from "@/lib/server/errors";
-import { command, execute, query } from "@/lib/server/operation";
+import { command, execute, query, type CommandContext } from "@/lib/server/operation";
 import type { SignedIn } from "@/lib/server/session";
 import { sha256OfBytes, storage } from "@/lib/server/storage";
 import { checkUploadSize, checkUploadType, displayFileName, evidenceStorageKey } from "@/lib/uploads";
@@ -452,77 +452,83 @@ export const moveDefect = command({
   name: "defect.move",
   input: moveDefectInput,
   permission: ["triage", "Defect"],
-  run: async ({ user, input, tx, now, audit }) => {
-    const before = await tx.query.defects.findFirst({ where: and(eq(defects.id, input.id), eq(defects.orgId, user.orgId)) });
-    if (!before) throw notFound("That defect");
-    if (input.version !== undefined && input.version !== before.version) throw conflict(STALE);
-    const move = toMachineMove(input);
-    const outcome = defectMove(before.state, move);
-    if (!outcome.ok) throw conflict(outcome.reason);
-
-    const changes: Partial<typeof defects.$inferInsert> = { state: outcome.to, updatedAt: now };
-    let extra: Record<string, unknown> = {};
-    if (move.kind === "start_repair") {
-      const job = await tx.query.jobs.findFirst({ where: and(eq(jobs.id, move.jobId), eq(jobs.orgId, user.orgId)) });
-      if (!job) throw new AppError("not_found", "That job was not found", [{ field: "jobId", message: "That job was not found" }]);
-      if (job.vehicleId !== before.vehicleId) {
-        throw new AppError("validation_failed", "That job is for another vehicle", [{ field: "jobId", message: "That job is for another vehicle" }]);
-      }
-      if (job.state === "cancelled" || job.state === "closed") throw conflict(`Job ${job.number} is ${job.state}; link an open job`);
-      changes.jobId = job.id;
-      extra = { jobId: job.id, jobNumber: job.number };
-    }
-    if (move.kind === "close") {
-      changes.closeReason = move.reason?.trim() || null;
-    }
-    if (move.kind === "merge") {
-      if (move.intoId === before.id) {
-        throw new AppError("validation_failed", "A report cannot be merged into itself", [{ field: "intoId", message: "Pick another report" }]);
-      }
-      const target = await tx.query.defects.findFirst({ where: and(eq(defects.id, move.intoId), eq(defects.orgId, user.orgId)) });
-      if (!target) throw new AppError("not_found", "The report to keep was not found", [{ field: "intoId", message: "That report was not found" }]);
-      if (target.vehicleId !== before.vehicleId) {
-        throw new AppError("validation_failed", "Only reports on the same vehicle can be merged", [{ field: "intoId", message: "That report is on another vehicle" }]);
-      }
-      if (!canReceiveMerge(target.state)) throw conflict(`The report to keep is ${target.state.replace("_", " ")}; merge into an open report`);
-      changes.mergedIntoId = target.id;
-      extra = { mergedIntoId: target.id };
-      // The kept report takes the more urgent severity of the two.
-      if (SEVERITY_RANK[before.severity] > SEVERITY_RANK[target.severity]) {
-        const raised = await tx
-          .update(defects)
-          .set({ severity: before.severity, updatedAt: now, version: sql`${defects.version} + 1` })
-          .where(and(eq(defects.id, target.id), eq(defects.version, target.version)))
-          .returning({ id: defects.id });
-        if (raised.length === 0) throw conflict("The report to keep was changed by someone else a moment ago; try again");
-        await audit({
-          action: "defect.severity_raised",
-          entityType: "defect",
-          entityId: target.id,
-          before: { severity: target.severity },
-          after: { severity: before.severity },
-          reason: `Merged with ${before.id} (${SEVERITY_LABELS[before.severity]})`,
-        });
-      }
-    }
-
-    const [after] = await tx
-      .update(defects)
-      .set({ ...changes, version: sql`${defects.version} + 1` })
-      .where(and(eq(defects.id, before.id), eq(defects.version, before.version), eq(defects.state, before.state)))
-      .returning();
-    if (!after) throw conflict(STALE);
-    await audit({
-      action: `defect.${move.kind}`,
-      entityType: "defect",
-      entityId: before.id,
-      before: { state: before.state },
-      after: { state: after.state, ...extra },
-      reason: move.kind === "close" ? (after.closeReason ?? null) : null,
-    });
-    return { id: after.id, state: after.state, version: after.version, jobId: after.jobId, mergedIntoId: after.mergedIntoId, closeReason: after.closeReason };
-  },
+  run: (ctx) => applyDefectMove(ctx),
 });
+
+/**
+ * The move itself, inside the caller's transaction: moveDefect runs it alone, and raising a
+ * job from a defect runs it in the same transaction as the new job (both or neither).
+ */
+export async function applyDefectMove({ user, input, tx, now, audit }: Pick<CommandContext<z.output<typeof moveDefectInput>>, "user" | "input" | "tx" | "now" | "audit">) {
+  const before = await tx.query.defects.findFirst({ where: and(eq(defects.id, input.id), eq(defects.orgId, user.orgId)) });
+  if (!before) throw notFound("That defect");
+  if (input.version !== undefined && input.version !== before.version) throw conflict(STALE);
+  const move = toMachineMove(input);
+  const outcome = defectMove(before.state, move);
+  if (!outcome.ok) throw conflict(outcome.reason);
+
+  const changes: Partial<typeof defects.$inferInsert> = { state: outcome.to, updatedAt: now };
+  let extra: Record<string, unknown> = {};
+  if (move.kind === "start_repair") {
+    const job = await tx.query.jobs.findFirst({ where: and(eq(jobs.id, move.jobId), eq(jobs.orgId, user.orgId)) });
+    if (!job) throw new AppError("not_found", "That job was not found", [{ field: "jobId", message: "That job was not found" }]);
+    if (job.vehicleId !== before.vehicleId) {
+      throw new AppError("validation_failed", "That job is for another vehicle", [{ field: "jobId", message: "That job is for another vehicle" }]);
+    }
+    if (job.state === "cancelled" || job.state === "closed") throw conflict(`Job ${job.number} is ${job.state}; link an open job`);
+    changes.jobId = job.id;
+    extra = { jobId: job.id, jobNumber: job.number };
+  }
+  if (move.kind === "close") {
+    changes.closeReason = move.reason?.trim() || null;
+  }
+  if (move.kind === "merge") {
+    if (move.intoId === before.id) {
+      throw new AppError("validation_failed", "A report cannot be merged into itself", [{ field: "intoId", message: "Pick another report" }]);
+    }
+    const target = await tx.query.defects.findFirst({ where: and(eq(defects.id, move.intoId), eq(defects.orgId, user.orgId)) });
+    if (!target) throw new AppError("not_found", "The report to keep was not found", [{ field: "intoId", message: "That report was not found" }]);
+    if (target.vehicleId !== before.vehicleId) {
+      throw new AppError("validation_failed", "Only reports on the same vehicle can be merged", [{ field: "intoId", message: "That report is on another vehicle" }]);
+    }
+    if (!canReceiveMerge(target.state)) throw conflict(`The report to keep is ${target.state.replace("_", " ")}; merge into an open report`);
+    changes.mergedIntoId = target.id;
+    extra = { mergedIntoId: target.id };
+    // The kept report takes the more urgent severity of the two.
+    if (SEVERITY_RANK[before.severity] > SEVERITY_RANK[target.severity]) {
+      const raised = await tx
+        .update(defects)
+        .set({ severity: before.severity, updatedAt: now, version: sql`${defects.version} + 1` })
+        .where(and(eq(defects.id, target.id), eq(defects.version, target.version)))
+        .returning({ id: defects.id });
+      if (raised.length === 0) throw conflict("The report to keep was changed by someone else a moment ago; try again");
+      await audit({
+        action: "defect.severity_raised",
+        entityType: "defect",
+        entityId: target.id,
+        before: { severity: target.severity },
+        after: { severity: before.severity },
+        reason: `Merged with ${before.id} (${SEVERITY_LABELS[before.severity]})`,
+      });
+    }
+  }
+
+  const [after] = await tx
+    .update(defects)
+    .set({ ...changes, version: sql`${defects.version} + 1` })
+    .where(and(eq(defects.id, before.id), eq(defects.version, before.version), eq(defects.state, before.state)))
+    .returning();
+  if (!after) throw conflict(STALE);
+  await audit({
+    action: `defect.${move.kind}`,
+    entityType: "defect",
+    entityId: before.id,
+    before: { state: before.state },
+    after: { state: after.state, ...extra },
+    reason: move.kind === "close" ? (after.closeReason ?? null) : null,
+  });
+  return { id: after.id, state: after.state, version: after.version, jobId: after.jobId, mergedIntoId: after.mergedIntoId, closeReason: after.closeReason };
+}
 
 /**
  * POST /api/defects/{id}/moves and the triage forms: moveDefect. Two managers at once give one

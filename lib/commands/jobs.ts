@@ -5,13 +5,14 @@ import { db, type DbOrTx, type Tx } from "@/db/client";
 import { listJobEvidence } from "@/db/evidence";
 import { listJobRows, loadJobLines, loadJobOffers, loadJobRow, loadVehicleLines, nextJobNumber, type VehicleGapLine } from "@/db/jobs";
 import { listQuoteRows, loadDecisions, loadQuoteLines } from "@/db/quotes";
-import { contractorFirms, costs, evidence, jobLines, jobOffers, jobs, quoteLines, quotes, vehicles, LINE_CATEGORIES } from "@/db/schema";
+import { contractorFirms, costs, defects, evidence, jobLines, jobOffers, jobs, quoteLines, quotes, vehicles, LINE_CATEGORIES } from "@/db/schema";
 import { findVehicle } from "@/db/vehicles";
 import { costCategoryFor, isJobOverdue, JOB_STATES, jobMachine, type JobState } from "@/lib/jobs";
 import { buildOrder, canAward, type SequenceLine } from "@/lib/sequence";
 import { AppError, conflict, forbidden, notFound } from "@/lib/server/errors";
 import { command, query, type CommandContext } from "@/lib/server/operation";
 import type { SignedIn } from "@/lib/server/session";
+import { applyDefectMove } from "./defects";
 import { noticeJobOffered, noticeJobSignedOff } from "./notices";
 
 const id = z.string({ error: "id is required" }).trim().min(1, { error: "id is required" }).max(64);
@@ -218,6 +219,8 @@ export const raiseJob = command({
       freeText: list(z.string().trim().max(500)).transform((items) => items.filter((t) => t.length > 0)),
       costKind: z.enum(["capital", "operating"], { error: "Choose capital or operating" }).default("capital"),
       dueAt: optionalDate,
+      /** A triaged defect this job repairs: it is linked and moves to "in repair" with the job. */
+      defectId: z.preprocess((v) => (v === "" ? undefined : v), id.optional()),
     })
     .superRefine((v, ctx) => {
       if (v.lineKeys.length + v.freeText.length === 0) ctx.addIssue({ code: "custom", path: ["lineKeys"], message: "Pick at least one line or describe the work" });
@@ -251,7 +254,17 @@ export const raiseJob = command({
       ...input.freeText.map((description) => ({ jobId: job.id, lineKey: null, description })),
     ].map((r, i) => ({ ...r, sortOrder: i }));
     await tx.insert(jobLines).values(rows);
-    await audit({ action: "job.raise", entityType: "job", entityId: job.id, after: { number, vehicleId: input.vehicleId, title: input.title, lines: rows.map((r) => r.description) } });
+    await audit({ action: "job.raise", entityType: "job", entityId: job.id, after: { number, vehicleId: input.vehicleId, title: input.title, lines: rows.map((r) => r.description), defectId: input.defectId ?? null } });
+    if (input.defectId) {
+      // Same transaction: the job exists only if the defect could be linked to it, and the other way round.
+      if (!user.ability.can("triage", "Defect")) throw forbidden("You may raise jobs but not move defects along");
+      const defect = await tx.query.defects.findFirst({ where: and(eq(defects.id, input.defectId), eq(defects.orgId, user.orgId)) });
+      if (!defect) throw new AppError("validation_failed", "That defect was not found", [{ field: "defectId", message: "That defect was not found" }]);
+      if (defect.vehicleId !== input.vehicleId) {
+        throw new AppError("validation_failed", "That defect is on another vehicle", [{ field: "defectId", message: "That defect is on another vehicle" }]);
+      }
+      await applyDefectMove({ user, tx, now, audit, input: { id: defect.id, version: undefined, move: "start_repair", jobId: job.id } });
+    }
     return { id: job.id, number };
   },
 });

@@ -1,6 +1,7 @@
 import { and, eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it, vi } from "vitest";
 import { POST as postDefect } from "@/app/api/defects/route";
+import { POST as raiseJobRoute } from "@/app/api/jobs/route";
 import { POST as moveRoute } from "@/app/api/defects/[id]/moves/route";
 import { GET as getDefectRoute } from "@/app/api/defects/[id]/route";
 import { auditEntries, defects, jobs } from "@/db/schema";
@@ -170,5 +171,43 @@ describe("manager triage", () => {
     await move(MANAGER, defect.id, { move: "start_repair", jobId: job });
     expect((await callRoute(getDefectRoute, { user: contractor, params: { id: defect.id } })).status).toBe(200);
     expect((await callRoute(getDefectRoute, { user: await signedInAs(database, "contractor@spindleflat-4x4.example"), params: { id: defect.id } })).status).toBe(404);
+  });
+});
+
+describe("raising a repair job from a defect", () => {
+  const raise = async (body: Record<string, unknown>) =>
+    callRoute(raiseJobRoute, { user: await signedInAs(database, MANAGER), body: { vehicleId: vehicle, title: "Repair the spotlight", freeText: ["Replace the left spotlight loom"], costKind: "operating", ...body } });
+  const jobCount = async () => (await database.select({ id: jobs.id }).from(jobs).where(eq(jobs.orgId, mirrabel))).length;
+
+  it("links a triaged defect to the new job and puts it in repair, in one step", async () => {
+    const defect = await reported();
+    await move(MANAGER, defect.id, { move: "triage" });
+    const { status, json } = await raise({ defectId: defect.id });
+    expect(status).toBe(201);
+    const jobId = (json as { id: string }).id;
+    expect(await stateOf(defect.id)).toMatchObject({ state: "in_repair", jobId });
+    const actions = (await database.select().from(auditEntries).where(eq(auditEntries.entityId, defect.id))).map((a) => a.action);
+    expect(actions).toEqual(["defect.report", "defect.triage", "defect.start_repair"]);
+  });
+
+  it("raises nothing when the defect cannot be linked: not triaged yet (409), on another vehicle (422), unknown (422)", async () => {
+    const untriaged = await reported();
+    const before = await jobCount();
+    const early = await raise({ defectId: untriaged.id });
+    expect(early.status).toBe(409);
+    expect((await stateOf(untriaged.id)).state).toBe("reported");
+
+    const elsewhere = await reported({ vehicleId: otherVehicle });
+    await move(MANAGER, elsewhere.id, { move: "triage" });
+    const wrongVehicle = await raise({ defectId: elsewhere.id });
+    expect(wrongVehicle.status).toBe(422);
+    expect(wrongVehicle.json).toMatchObject({ error: { details: [{ field: "defectId", message: "That defect is on another vehicle" }] } });
+    expect((await stateOf(elsewhere.id)).state).toBe("triaged");
+
+    const unknown = await raise({ defectId: uuid() });
+    expect(unknown.status).toBe(422);
+    expect(unknown.json).toMatchObject({ error: { details: [{ field: "defectId" }] } });
+    // The job and the link stand or fall together.
+    expect(await jobCount()).toBe(before);
   });
 });

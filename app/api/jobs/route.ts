@@ -6,5 +6,5 @@ export const GET = routeHandler(listJobs, (request) => queryParams(request), {
   respond: (items) => Response.json({ items }),
 });
 
-/** Raise a job on a vehicle: `{ vehicleId, title, lineKeys: [...], freeText: [...], costKind, dueAt }`. */
+/** Raise a job on a vehicle: `{ vehicleId, title, lineKeys: [...], freeText: [...], costKind, dueAt, defectId? }` (a triaged defect it repairs). */
 export const POST = routeHandler(raiseJob, (request) => readJson(request), { status: 201 });

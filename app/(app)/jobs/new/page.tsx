@@ -4,17 +4,19 @@ import { notFound } from "next/navigation";
 import { RaiseJobForm } from "@/components/jobs/raise-job-form";
 import { Button, Card, CardBody, CardHeader, Field, PageHeader, Select } from "@/components/ui";
 import { db } from "@/db/client";
+import { findDefect } from "@/db/defects";
 import { listVehicleSummaries } from "@/db/vehicles";
 import { vehiclePlan } from "@/lib/commands/jobs";
+import { defectTitle } from "@/lib/defects";
 import { AppError } from "@/lib/server/errors";
 import { requirePermission } from "@/lib/server/guard";
 import { execute } from "@/lib/server/operation";
 
 export const metadata: Metadata = { title: "Raise a job" };
 
-export default async function NewJobPage({ searchParams }: { searchParams: Promise<{ vehicleId?: string }> }) {
+export default async function NewJobPage({ searchParams }: { searchParams: Promise<{ vehicleId?: string; defectId?: string }> }) {
   const user = await requirePermission("manage", "Job");
-  const { vehicleId } = await searchParams;
+  const { vehicleId, defectId } = await searchParams;
   if (!vehicleId) {
     const vehicles = await listVehicleSummaries(db(), user, { limit: 500 });
     return (
@@ -45,6 +47,16 @@ export default async function NewJobPage({ searchParams }: { searchParams: Promi
     if (error instanceof AppError && (error.code === "not_found" || error.code === "validation_failed")) notFound();
     throw error;
   });
+  // Raised from a triaged defect on this vehicle: the job starts from its words and links it.
+  const found = defectId && user.ability.can("triage", "Defect") ? await findDefect(db(), user, defectId) : null;
+  const repairFor =
+    found && found.defect.vehicleId === plan.vehicle.id && found.defect.state === "triaged"
+      ? {
+          id: found.defect.id,
+          title: defectTitle(found.defect.category, found.defect.description),
+          description: found.defect.description.replace(/\s+/g, " ").trim().slice(0, 400),
+        }
+      : null;
   return (
     <div className="flex flex-col gap-6">
       <PageHeader
@@ -59,7 +71,7 @@ export default async function NewJobPage({ searchParams }: { searchParams: Promi
       <Card>
         <CardHeader title="From the vehicle's variance" description="Short, off-spec and unproven lines, in the order they can be fitted" />
         <CardBody>
-          <RaiseJobForm vehicleId={plan.vehicle.id} fleetNumber={plan.vehicle.fleetNumber} lines={plan.lines} />
+          <RaiseJobForm vehicleId={plan.vehicle.id} fleetNumber={plan.vehicle.fleetNumber} lines={plan.lines} repairFor={repairFor} />
         </CardBody>
       </Card>
     </div>
