@@ -221,12 +221,38 @@ export async function editionShortLines(db: DbOrTx, orgId: string, editionId: st
   return { edition: { ...head, label: `${head.standardName} — edition ${head.number}` }, items };
 }
 
-/** The vehicle's weighbridge tickets, newest first. */
+/** The vehicle's weighbridge tickets, newest first, each with its attached file's facts (or null). */
 export async function listTickets(db: DbOrTx, orgId: string, vehicleId: string) {
-  return db
-    .select()
+  const rows = await db
+    .select({
+      ticket: weighbridgeTickets,
+      fileId: evidence.id,
+      filename: evidence.filename,
+      contentType: evidence.contentType,
+      sizeBytes: evidence.sizeBytes,
+      sha256: evidence.sha256,
+    })
     .from(weighbridgeTickets)
+    .leftJoin(evidence, and(eq(evidence.id, weighbridgeTickets.evidenceId), eq(evidence.orgId, orgId)))
     .where(and(eq(weighbridgeTickets.orgId, orgId), eq(weighbridgeTickets.vehicleId, vehicleId)))
     .orderBy(desc(weighbridgeTickets.weighedAt), desc(weighbridgeTickets.createdAt))
     .limit(50);
+  return rows.map((r) => ({
+    ...r.ticket,
+    file:
+      r.fileId && r.filename && r.contentType && r.sizeBytes !== null && r.sha256
+        ? { id: r.fileId, filename: r.filename, contentType: r.contentType, sizeBytes: r.sizeBytes, sha256: r.sha256 }
+        : null,
+  }));
+}
+
+/** The stored file of one ticket of one vehicle in the organisation, or null. */
+export async function ticketFileRow(db: DbOrTx, orgId: string, vehicleId: string, ticketId: string) {
+  const [row] = await db
+    .select({ storageKey: evidence.storageKey, filename: evidence.filename, contentType: evidence.contentType, sha256: evidence.sha256 })
+    .from(weighbridgeTickets)
+    .innerJoin(evidence, and(eq(evidence.id, weighbridgeTickets.evidenceId), eq(evidence.orgId, orgId)))
+    .where(and(eq(weighbridgeTickets.id, ticketId), eq(weighbridgeTickets.orgId, orgId), eq(weighbridgeTickets.vehicleId, vehicleId)))
+    .limit(1);
+  return row ?? null;
 }
