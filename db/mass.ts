@@ -2,7 +2,8 @@ import { and, asc, desc, eq, inArray, isNull, or } from "drizzle-orm";
 import type { FittedItem, MassContext, PlannedItem, PlanZone } from "@/components/mass/model";
 import type { Actor } from "@/lib/permissions";
 import type { DbOrTx } from "./client";
-import { editionLines, editions, evidence, fitments, jobs, organisations, plannedItems, standards, weighbridgeTickets } from "./schema";
+import { electricalPlanSchema, type ElectricalPlan } from "@/lib/electrical/plan";
+import { editionLines, editions, electricalPlans, evidence, fitments, jobs, organisations, plannedItems, standards, users, weighbridgeTickets } from "./schema";
 import { findVehicle } from "./vehicles";
 
 type EvidenceState = FittedItem["evidenceStatus"];
@@ -255,4 +256,21 @@ export async function ticketFileRow(db: DbOrTx, orgId: string, vehicleId: string
     .where(and(eq(weighbridgeTickets.id, ticketId), eq(weighbridgeTickets.orgId, orgId), eq(weighbridgeTickets.vehicleId, vehicleId)))
     .limit(1);
   return row ?? null;
+}
+
+/**
+ * The vehicle's saved 12 V plan, or null. The stored document is checked again on the way out: a
+ * row that no longer passes the schema is treated as no plan rather than shown half-read.
+ */
+export async function loadElectricalPlan(db: DbOrTx, orgId: string, vehicleId: string) {
+  const [row] = await db
+    .select({ row: electricalPlans, updatedByName: users.name })
+    .from(electricalPlans)
+    .leftJoin(users, eq(users.id, electricalPlans.updatedBy))
+    .where(and(eq(electricalPlans.orgId, orgId), eq(electricalPlans.vehicleId, vehicleId)))
+    .limit(1);
+  if (!row) return null;
+  const parsed = electricalPlanSchema.safeParse(row.row.plan);
+  if (!parsed.success) return null;
+  return { id: row.row.id, plan: parsed.data as ElectricalPlan, version: row.row.version, updatedAt: row.row.updatedAt, updatedByName: row.updatedByName ?? null };
 }

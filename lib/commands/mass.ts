@@ -3,10 +3,10 @@ import { and, eq, or, sql } from "drizzle-orm";
 import { fileTypeFromBuffer } from "file-type";
 import { z } from "zod";
 import { db, type DbOrTx } from "@/db/client";
-import { editionShortLines, listPlannedItems, listTickets, loadMassContext, plannableEditions, ticketFileRow, toPlannedItem } from "@/db/mass";
+import { editionShortLines, listPlannedItems, listTickets, loadElectricalPlan, loadMassContext, plannableEditions, ticketFileRow, toPlannedItem } from "@/db/mass";
 import { ruleSetInUse } from "@/db/rule-sets";
-import { evidence, jobOffers, jobs, plannedItems, vehicles, weighbridgeTickets } from "@/db/schema";
-import { BRAKE_CAUTION, MASS_CAUTION, RULE_SET_LABEL, WEIGHBRIDGE_CAUTION } from "@/components/mass/cautions";
+import { electricalPlans, evidence, jobOffers, jobs, plannedItems, vehicles, weighbridgeTickets } from "@/db/schema";
+import { BRAKE_CAUTION, ELECTRICAL_CAUTION, MASS_CAUTION, RULE_SET_LABEL, WEIGHBRIDGE_CAUTION } from "@/components/mass/cautions";
 import {
   computeMass,
   EMPTY_LOADING,
@@ -19,6 +19,7 @@ import {
   type MassFigures,
   type PlannedItem,
 } from "@/components/mass/model";
+import { electricalPlanSchema, summariseElectricalPlan, type ElectricalPlan, type ElectricalPlanSummary } from "@/lib/electrical";
 import { reconcileWeighbridge, type ReconcileResult } from "@/lib/mass";
 import type { Actor } from "@/lib/permissions";
 import type { StatementData } from "@/lib/statement";
@@ -567,6 +568,94 @@ export const listWeighbridgeQuery = query({
   },
 });
 
+// ─── 12 V plan ───────────────────────────────────────────────────────────────
+
+export type SavedElectricalPlan = {
+  plan: ElectricalPlan;
+  summary: ElectricalPlanSummary;
+  version: number;
+  updatedAt: string;
+  updatedBy: string | null;
+};
+
+async function savedPlanOf(database: DbOrTx, orgId: string, vehicle: string): Promise<SavedElectricalPlan | null> {
+  const saved = await loadElectricalPlan(database, orgId, vehicle);
+  if (!saved) return null;
+  return { plan: saved.plan, summary: summariseElectricalPlan(saved.plan), version: saved.version, updatedAt: saved.updatedAt.toISOString(), updatedBy: saved.updatedByName };
+}
+
+/** GET /api/vehicles/{id}/electrical-plan: the saved plan with its results, or `plan: null`. */
+export const electricalPlanQuery = query({
+  name: "electrical_plan.read",
+  input: z.object({ id: vehicleId }),
+  permission: ["read", "MassPlan"],
+  run: async ({ user, input }) => {
+    const { context } = await contextOrNotFound(db(), user, input.id);
+    const saved = await savedPlanOf(db(), user.orgId, context.vehicle.id);
+    return { vehicleId: context.vehicle.id, ...(saved ?? { plan: null, summary: null, version: 0, updatedAt: null, updatedBy: null }), caution: ELECTRICAL_CAUTION };
+  },
+});
+
+/** The save's input: the plan itself (a JSON body, or a form's `plan` field holding JSON) and the vehicle id. */
+export const saveElectricalPlanInput = z.preprocess(
+  (raw) => {
+    if (!raw || typeof raw !== "object") return raw;
+    const source = raw as Record<string, unknown>;
+    if (typeof source.plan !== "string") return raw;
+    try {
+      return { ...(JSON.parse(source.plan) as Record<string, unknown>), id: source.id };
+    } catch {
+      return { id: source.id, plan: Symbol("unreadable") };
+    }
+  },
+  electricalPlanSchema.extend({ id: vehicleId }),
+);
+
+/** PUT /api/vehicles/{id}/electrical-plan: replaces the vehicle's current plan, audited. */
+export const saveElectricalPlan = command({
+  name: "electrical_plan.save",
+  input: saveElectricalPlanInput,
+  permission: ["manage", "MassPlan"],
+  run: async ({ user, input, tx, audit, now }) => {
+    const { context } = await vehicleInScope(tx, user, input.id);
+    const { id: _vehicle, ...plan } = input;
+    // The calculators refuse what the schema cannot see (a day of use no battery can hold): 422 naming the field.
+    const summary = summariseElectricalPlan(plan);
+    const before = await loadElectricalPlan(tx, user.orgId, context.vehicle.id);
+    let rowId: string;
+    let version: number;
+    if (before) {
+      version = before.version + 1;
+      await tx
+        .update(electricalPlans)
+        .set({ plan, version, updatedBy: user.userId, updatedAt: now })
+        .where(and(eq(electricalPlans.id, before.id), eq(electricalPlans.orgId, user.orgId)));
+      rowId = before.id;
+    } else {
+      version = 1;
+      const [row] = await tx.insert(electricalPlans).values({ orgId: user.orgId, vehicleId: context.vehicle.id, plan, version, updatedBy: user.userId }).returning({ id: electricalPlans.id });
+      if (!row) throw new Error("electrical plan insert returned nothing");
+      rowId = row.id;
+    }
+    await audit({
+      action: "electrical_plan.save",
+      entityType: "electrical_plan",
+      entityId: rowId,
+      before: before ? { vehicleId: context.vehicle.id, version: before.version, ...before.plan } : null,
+      after: { vehicleId: context.vehicle.id, version, ...plan },
+    });
+    return {
+      vehicleId: context.vehicle.id,
+      plan,
+      summary,
+      version,
+      updatedAt: now.toISOString(),
+      updatedBy: user.name,
+      caution: ELECTRICAL_CAUTION,
+    };
+  },
+});
+
 // ─── The tab and the statement ───────────────────────────────────────────────
 
 /** Everything the Mass & fit-out tab shows, for the server-rendered page. */
@@ -588,6 +677,7 @@ export const massTabQuery = query({
       editions: canPlan ? await plannableEditions(db(), user.orgId) : [],
       tickets: tickets.map((t) => ticketView(context.vehicle.id, t)),
       reconciliation: latest ? reconcileTicket(context, latest) : null,
+      electricalPlan: await savedPlanOf(db(), user.orgId, context.vehicle.id),
       can: { plan: canPlan, readTickets: canReadTickets, recordTicket: canRecordTicket, readRuleSets: user.ability.can("read", "OrgSettings") },
     };
   },
@@ -625,6 +715,50 @@ export function loadingText(loading: Loading, personMassKg: number): string {
   if (loading.trailerAtmKg > 0) parts.push(`trailer ATM ${loading.trailerAtmKg} kg with ${loading.towballKg} kg on the towball`);
   const text = parts.join(", ");
   return `${text.charAt(0).toUpperCase()}${text.slice(1)}.`;
+}
+
+const CHEMISTRY_WORDS: Record<ElectricalPlan["chemistry"], string> = {
+  "lead-acid": "flooded lead-acid",
+  agm: "AGM",
+  "lithium-iron-phosphate": "lithium iron phosphate",
+};
+
+/** The saved 12 V plan as the statement prints it. */
+export function electricalStatement(saved: SavedElectricalPlan | null): StatementData["electrical"] {
+  if (!saved) return null;
+  const { summary, plan } = saved;
+  const b = summary.battery;
+  const r = summary.recharge;
+  const suggested = `for example ${b.suggestedBattery.count > 1 ? `${b.suggestedBattery.count} x ` : ""}${b.suggestedBattery.capacityAhEach} Ah`;
+  return {
+    systemV: summary.systemV,
+    chemistry: CHEMISTRY_WORDS[summary.chemistry],
+    daysAutonomy: summary.daysAutonomy,
+    consumers: plan.consumers.length,
+    dailyAh: b.dailyAh,
+    dailyWh: b.dailyWh,
+    requiredCapacityAh: b.requiredCapacityAh,
+    usableDepthPct: b.usableDepthOfDischargePct,
+    suggestedBattery: suggested,
+    rechargeText: r
+      ? `Charging: ${plan.sources.length} source${plan.sources.length === 1 ? "" : "s"} put in ${r.chargeA.toFixed(1)} A together; the ${summary.daysAutonomy}-day use comes back in ${r.hoursToRecover.toFixed(1)} h of charging${
+          r.daysToRecover !== null ? ` (${Math.round(r.dailyAhIn)} Ah a day in against ${Math.round(b.dailyAh)} Ah used: ${r.dailyAhIn >= b.dailyAh ? "keeps up" : "falls behind"})` : ""
+        }.`
+      : "No charging sources are planned.",
+    runs: summary.runs.map((run) => ({
+      label: run.label,
+      circuit: `${run.circuit}, ${run.maxDropPct} % limit`,
+      currentA: run.currentA,
+      lengthOneWayM: run.lengthOneWayM,
+      size: run.sizeLabel,
+      dropV: run.dropV,
+      dropPct: run.dropPct,
+      withinLimit: run.withinLimit,
+      fuseA: run.fuseA,
+      fuseLocation: run.fuseLocation,
+    })),
+    savedText: `Saved plan, version ${saved.version}, ${new Date(saved.updatedAt).toLocaleDateString("en-AU", { day: "numeric", month: "short", year: "numeric" })}${saved.updatedBy ? ` by ${saved.updatedBy}` : ""}.`,
+  };
 }
 
 /** GET /api/vehicles/{id}/statement: the data of the printable statement (rendered by the route). */
@@ -710,11 +844,12 @@ export const statementQuery = query({
         position: positionText(p),
         kind: p.massKind === "variable" ? "Variable" : "Constant",
       })),
+      electrical: electricalStatement(await savedPlanOf(db(), user.orgId, context.vehicle.id)),
       measured: context.measured
         ? { ...context.measured, measuredAt: context.measured.measuredAt ? new Date(context.measured.measuredAt) : null }
         : null,
       ruleSet: { name: response.ruleSet.name, note: response.ruleSet.note, label: RULE_SET_LABEL },
-      cautions: [MASS_CAUTION, BRAKE_CAUTION],
+      cautions: [MASS_CAUTION, BRAKE_CAUTION, ELECTRICAL_CAUTION],
     };
     return { data, filename: `mass-statement-${context.vehicle.fleetNumber.replace(/[^A-Za-z0-9-]+/g, "_")}.pdf` };
   },
