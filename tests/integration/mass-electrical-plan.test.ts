@@ -48,7 +48,7 @@ type Saved = {
   caution: string;
 };
 
-const put = (body: unknown, user = manager, id = vehicle.id) => callRoute(putRoute, { user, method: "PUT", params: { id }, body });
+const put = (body: unknown, user: typeof manager | null = manager, id = vehicle.id) => callRoute(putRoute, { user, method: "PUT", params: { id }, body });
 
 describe("the saved 12 V plan", () => {
   it("has none until one is saved", async () => {
