@@ -338,7 +338,8 @@ export async function prepareTicketFile(file: Blob): Promise<{ bytes: Buffer; ty
     throw fileRefusal(tooBig.message);
   }
   const head = await fileTypeFromBuffer(new Uint8Array(await file.slice(0, 4100).arrayBuffer()));
-  const words = TICKET_FILE_TYPES.map((t) => TYPE_WORDS[t]).join(", ");
+  const names = TICKET_FILE_TYPES.map((t) => TYPE_WORDS[t]);
+  const words = `${names.slice(0, -1).join(", ")} or ${names[names.length - 1]}`;
   if (!head || !(TICKET_FILE_TYPES as readonly string[]).includes(head.mime)) {
     throw fileRefusal(`The ticket file must be a ${words}; this file's content is ${head ? head.mime : "not one of those"}, whatever its name says`);
   }
