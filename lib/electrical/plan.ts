@@ -12,15 +12,22 @@ import { rechargeTime, type ChargeSourceKind, type RechargeResult } from "./rech
  */
 
 /** A number typed into a form ("4.5") or sent as JSON (4.5); blank is "missing", never 0. */
+function numberSchema(label: string, min: number, max: number, unit: string, options: { exclusiveMin?: boolean } = {}) {
+  return z
+    .number({ error: `Enter ${label} in ${unit}` })
+    .refine((n) => Number.isFinite(n), { error: `Enter ${label} in ${unit}` })
+    .refine((n) => (options.exclusiveMin ? n > min : n >= min), { error: `${capital(label)} must be ${options.exclusiveMin ? "more than" : "at least"} ${min} ${unit}` })
+    .refine((n) => n <= max, { error: `${capital(label)} must be at most ${max.toLocaleString("en-AU")} ${unit}` });
+}
+
+const typedNumber = (v: unknown) => (typeof v === "string" ? (v.trim() === "" ? undefined : Number(v.trim())) : v === null ? undefined : v);
+
 const numberField = (label: string, min: number, max: number, unit: string, options: { exclusiveMin?: boolean } = {}) =>
-  z.preprocess(
-    (v) => (typeof v === "string" ? (v.trim() === "" ? undefined : Number(v.trim())) : v),
-    z
-      .number({ error: `Enter ${label} in ${unit}` })
-      .refine((n) => Number.isFinite(n), { error: `Enter ${label} in ${unit}` })
-      .refine((n) => (options.exclusiveMin ? n > min : n >= min), { error: `${capital(label)} must be ${options.exclusiveMin ? "more than" : "at least"} ${min} ${unit}` })
-      .refine((n) => n <= max, { error: `${capital(label)} must be at most ${max.toLocaleString("en-AU")} ${unit}` }),
-  );
+  z.preprocess(typedNumber, numberSchema(label, min, max, unit, options));
+
+/** The same, where a blank field simply leaves the figure out. */
+const optionalNumberField = (label: string, min: number, max: number, unit: string, options: { exclusiveMin?: boolean } = {}) =>
+  z.preprocess(typedNumber, numberSchema(label, min, max, unit, options).optional());
 
 function capital(text: string): string {
   return `${text.charAt(0).toUpperCase()}${text.slice(1)}`;
@@ -42,7 +49,7 @@ export const planConsumerSchema = z.object({
   currentA: numberField("the current", 0, 500, "A", { exclusiveMin: true }),
   hoursPerDay: numberField("the hours a day", 0, 24, "h"),
   /** Share of the hours the consumer actually draws (a fridge compressor cycles); 100 % when not given. */
-  dutyPct: numberField("the duty", 0, 100, "%").optional(),
+  dutyPct: optionalNumberField("the duty", 0, 100, "%"),
 });
 
 export const planSourceSchema = z
@@ -50,7 +57,7 @@ export const planSourceSchema = z
     kind: z.enum(PLAN_SOURCE_KINDS, { error: 'kind must be "dc-dc", "solar" or "mains"' }),
     amount: numberField("the output", 0, 5000, "A or W", { exclusiveMin: true }),
     unit: z.enum(["A", "W"], { error: 'unit must be "A" or "W"' }),
-    hoursPerDay: numberField("the hours a day", 0, 24, "h").optional(),
+    hoursPerDay: optionalNumberField("the hours a day", 0, 24, "h"),
   })
   .refine((s) => s.kind !== "solar" || s.hoursPerDay !== undefined, { path: ["hoursPerDay"], error: "Give the peak sun hours a day for a solar panel" });
 
