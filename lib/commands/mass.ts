@@ -321,7 +321,10 @@ export const TICKET_FILE_MAX_BYTES = EVIDENCE_MAX_BYTES;
 /** An empty file input (no file chosen) arrives as a nameless zero-byte file: that is no file. */
 const ticketFileField = z.preprocess(
   (v) => (v === "" || v === null || (v instanceof Blob && v.size === 0 && !(v as File).name) ? undefined : v),
-  z.custom<Blob>((v) => v instanceof Blob, { error: "Attach the ticket as a file (PDF, JPEG or PNG)" }).optional(),
+  z
+    .custom<Blob>((v) => v instanceof Blob, { error: "Attach the ticket as a file (PDF, JPEG or PNG)" })
+    .meta({ description: "The ticket as a PDF, JPEG or PNG of at most 10 MiB (optional)", override: { type: "string", format: "binary" } })
+    .optional(),
 );
 
 const fileRefusal = (message: string) => new AppError("validation_failed", message, [{ field: "file", message }]);
