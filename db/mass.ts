@@ -2,7 +2,8 @@ import { and, asc, desc, eq, inArray, isNull, or } from "drizzle-orm";
 import type { FittedItem, MassContext, PlannedItem, PlanZone } from "@/components/mass/model";
 import type { Actor } from "@/lib/permissions";
 import type { DbOrTx } from "./client";
-import { editionLines, editions, evidence, fitments, jobs, organisations, plannedItems, standards, weighbridgeTickets } from "./schema";
+import { electricalPlanSchema, type ElectricalPlan } from "@/lib/electrical/plan";
+import { editionLines, editions, electricalPlans, evidence, fitments, jobs, organisations, plannedItems, standards, users, weighbridgeTickets } from "./schema";
 import { findVehicle } from "./vehicles";
 
 type EvidenceState = FittedItem["evidenceStatus"];
@@ -221,12 +222,55 @@ export async function editionShortLines(db: DbOrTx, orgId: string, editionId: st
   return { edition: { ...head, label: `${head.standardName} — edition ${head.number}` }, items };
 }
 
-/** The vehicle's weighbridge tickets, newest first. */
+/** The vehicle's weighbridge tickets, newest first, each with its attached file's facts (or null). */
 export async function listTickets(db: DbOrTx, orgId: string, vehicleId: string) {
-  return db
-    .select()
+  const rows = await db
+    .select({
+      ticket: weighbridgeTickets,
+      fileId: evidence.id,
+      filename: evidence.filename,
+      contentType: evidence.contentType,
+      sizeBytes: evidence.sizeBytes,
+      sha256: evidence.sha256,
+    })
     .from(weighbridgeTickets)
+    .leftJoin(evidence, and(eq(evidence.id, weighbridgeTickets.evidenceId), eq(evidence.orgId, orgId)))
     .where(and(eq(weighbridgeTickets.orgId, orgId), eq(weighbridgeTickets.vehicleId, vehicleId)))
     .orderBy(desc(weighbridgeTickets.weighedAt), desc(weighbridgeTickets.createdAt))
     .limit(50);
+  return rows.map((r) => ({
+    ...r.ticket,
+    file:
+      r.fileId && r.filename && r.contentType && r.sizeBytes !== null && r.sha256
+        ? { id: r.fileId, filename: r.filename, contentType: r.contentType, sizeBytes: r.sizeBytes, sha256: r.sha256 }
+        : null,
+  }));
+}
+
+/** The stored file of one ticket of one vehicle in the organisation, or null. */
+export async function ticketFileRow(db: DbOrTx, orgId: string, vehicleId: string, ticketId: string) {
+  const [row] = await db
+    .select({ storageKey: evidence.storageKey, filename: evidence.filename, contentType: evidence.contentType, sha256: evidence.sha256 })
+    .from(weighbridgeTickets)
+    .innerJoin(evidence, and(eq(evidence.id, weighbridgeTickets.evidenceId), eq(evidence.orgId, orgId)))
+    .where(and(eq(weighbridgeTickets.id, ticketId), eq(weighbridgeTickets.orgId, orgId), eq(weighbridgeTickets.vehicleId, vehicleId)))
+    .limit(1);
+  return row ?? null;
+}
+
+/**
+ * The vehicle's saved 12 V plan, or null. The stored document is checked again on the way out: a
+ * row that no longer passes the schema is treated as no plan rather than shown half-read.
+ */
+export async function loadElectricalPlan(db: DbOrTx, orgId: string, vehicleId: string) {
+  const [row] = await db
+    .select({ row: electricalPlans, updatedByName: users.name })
+    .from(electricalPlans)
+    .leftJoin(users, eq(users.id, electricalPlans.updatedBy))
+    .where(and(eq(electricalPlans.orgId, orgId), eq(electricalPlans.vehicleId, vehicleId)))
+    .limit(1);
+  if (!row) return null;
+  const parsed = electricalPlanSchema.safeParse(row.row.plan);
+  if (!parsed.success) return null;
+  return { id: row.row.id, plan: parsed.data as ElectricalPlan, version: row.row.version, updatedAt: row.row.updatedAt, updatedByName: row.updatedByName ?? null };
 }

@@ -15,6 +15,7 @@ import {
   type AnySQLiteColumn,
 } from "drizzle-orm/sqlite-core";
 import { DEFECT_SEVERITIES, DEFECT_STATES } from "@/lib/defects/vocabulary";
+import type { ElectricalPlan } from "@/lib/electrical/plan";
 import { COST_KINDS, COST_SOURCES } from "@/lib/exports/labels";
 import { RECORDED_DECISIONS } from "@/lib/jobs/decisions";
 import { GST_METHODS } from "@/lib/money/quote";
@@ -470,6 +471,30 @@ export const plannedItems = sqliteTable(
     createdAt: createdAt(),
   },
   (t) => [index("planned_items_vehicle").on(t.vehicleId)],
+);
+
+/**
+ * The vehicle's current 12 V plan, one per vehicle: the inputs (consumers, days of autonomy,
+ * chemistry, charging sources, cable runs) as one JSON document validated by
+ * `electricalPlanSchema` (lib/electrical/plan.ts) on every save and load. Results are not
+ * stored: they are recomputed from the inputs, so a change to a calculator never leaves a
+ * stale figure. `version` counts saves.
+ */
+export const electricalPlans = sqliteTable(
+  "electrical_plans",
+  {
+    id: id(),
+    orgId: orgRef(),
+    vehicleId: text("vehicle_id")
+      .notNull()
+      .references(() => vehicles.id, { onDelete: "cascade" }),
+    plan: json<ElectricalPlan>("plan").notNull(),
+    version: integer("version").notNull().default(1),
+    updatedBy: text("updated_by").references(() => users.id),
+    createdAt: createdAt(),
+    updatedAt: updatedAt(),
+  },
+  (t) => [uniqueIndex("electrical_plans_vehicle").on(t.vehicleId), index("electrical_plans_org").on(t.orgId)],
 );
 
 export const weighbridgeTickets = sqliteTable(

@@ -1,7 +1,12 @@
 "use client";
 
-import { useState } from "react";
+import { useCallback, useState } from "react";
+import { saveElectricalPlanAction } from "@/app/(app)/vehicles/[id]/mass/actions";
+import { FormStatus } from "@/components/forms/form-status";
+import { SubmitButton } from "@/components/forms/submit-button";
+import { useFormAction } from "@/components/forms/use-form-action";
 import { Button, Caution, Field, Input, Quantity, Select, StatusPill, Table, TBody, Td, Th, THead, Tr } from "@/components/ui";
+import type { SavedElectricalPlan } from "@/lib/commands/mass";
 import {
   batteryPlan,
   cableRun,
@@ -14,6 +19,7 @@ import {
   type RechargeResult,
 } from "@/lib/electrical";
 import { InputError } from "@/lib/errors";
+import type { FormState } from "@/lib/server/form-state";
 import { ELECTRICAL_CAUTION } from "./cautions";
 
 type ConsumerRow = { label: string; currentA: string; hoursPerDay: string };
@@ -54,14 +60,69 @@ function attempt<T>(fn: () => T): Outcome<T> {
   }
 }
 
+type PlanText = { systemV: string; days: string; chemistry: BatteryChemistry; consumers: ConsumerRow[]; sources: SourceRow[]; runs: RunRow[] };
+
+const text = (n: number | undefined) => (n === undefined ? "" : String(n));
+
+/** The saved plan as the text the fields hold; the invented starting rows when none is saved. */
+function planText(saved: SavedElectricalPlan | null): PlanText {
+  if (!saved) return { systemV: "12", days: "2", chemistry: "lithium-iron-phosphate", consumers: START_CONSUMERS, sources: START_SOURCES, runs: START_RUNS };
+  const p = saved.plan;
+  return {
+    systemV: String(p.systemV),
+    days: text(p.daysAutonomy),
+    chemistry: p.chemistry,
+    consumers: p.consumers.map((c) => ({ label: c.label, currentA: text(c.currentA), hoursPerDay: text(c.hoursPerDay) })),
+    sources: p.sources.map((x) => ({ kind: x.kind, amount: text(x.amount), unit: x.unit, hoursPerDay: text(x.hoursPerDay) })),
+    runs: p.runs.map((r) => ({ label: r.label, currentA: text(r.currentA), lengthM: text(r.lengthOneWayM), circuit: r.circuit })),
+  };
+}
+
+/** What the Save button sends: the fields as typed (the server validates and names any field at fault). */
+function planJson(t: PlanText): string {
+  return JSON.stringify({
+    systemV: t.systemV,
+    daysAutonomy: t.days,
+    chemistry: t.chemistry,
+    consumers: t.consumers.map((c) => ({ label: c.label, currentA: c.currentA, hoursPerDay: c.hoursPerDay })),
+    sources: t.sources.map((x) => ({ kind: x.kind, amount: x.amount, unit: x.unit, hoursPerDay: x.hoursPerDay })),
+    runs: t.runs.map((r) => ({ label: r.label, currentA: r.currentA, lengthOneWayM: r.lengthM, circuit: r.circuit })),
+  });
+}
+
+function savedWords(version: number, updatedAt: string, by: string | null): string {
+  const when = new Date(updatedAt).toLocaleString("en-AU", { day: "numeric", month: "short", year: "numeric", hour: "numeric", minute: "2-digit" });
+  return `Saved ${when}${by ? ` by ${by}` : ""} (version ${version}).`;
+}
+
 /** 12 V plan: daily budget, battery for the days of autonomy, recharge time and the cable of each run. */
-export function ElectricalPlan() {
-  const [consumers, setConsumers] = useState(START_CONSUMERS);
-  const [sources, setSources] = useState(START_SOURCES);
-  const [runs, setRuns] = useState(START_RUNS);
-  const [days, setDays] = useState("2");
-  const [chemistry, setChemistry] = useState<BatteryChemistry>("lithium-iron-phosphate");
-  const [systemV, setSystemV] = useState("12");
+export function ElectricalPlan({ vehicleId, saved, canSave }: { vehicleId: string; saved: SavedElectricalPlan | null; canSave: boolean }) {
+  const [initial] = useState(() => planText(saved));
+  const [consumers, setConsumers] = useState(initial.consumers);
+  const [sources, setSources] = useState(initial.sources);
+  const [runs, setRuns] = useState(initial.runs);
+  const [days, setDays] = useState(initial.days);
+  const [chemistry, setChemistry] = useState<BatteryChemistry>(initial.chemistry);
+  const [systemV, setSystemV] = useState(initial.systemV);
+  const current = planJson({ systemV, days, chemistry, consumers, sources, runs });
+  const [savedJson, setSavedJson] = useState<string | null>(() => (saved ? planJson(initial) : null));
+  const [savedNote, setSavedNote] = useState<string | null>(() => (saved ? savedWords(saved.version, saved.updatedAt, saved.updatedBy) : null));
+
+  const action = useCallback(
+    async (prev: FormState, formData: FormData) => {
+      const sent = String(formData.get("plan") ?? "");
+      const next = (await saveElectricalPlanAction(prev, formData)) as FormState<{ version: number; updatedAt: string; updatedBy: string | null }>;
+      if (next.status === "ok" && next.data) {
+        setSavedJson(sent);
+        setSavedNote(savedWords(next.data.version, next.data.updatedAt, next.data.updatedBy));
+      }
+      return next as FormState;
+    },
+    [],
+  );
+  const { state, formAction, errorOf } = useFormAction(action);
+  const serverError = (field: string) => (state.status === "error" ? errorOf(field) : undefined);
+  const dirty = current !== savedJson;
 
   const v = num(systemV);
   const battery: Outcome<BatteryPlanResult> = attempt(() =>
@@ -89,7 +150,7 @@ export function ElectricalPlan() {
   const cable = runs.map((r) => attempt<CableRunResult>(() => cableRun({ currentA: num(r.currentA), lengthOneWayM: num(r.lengthM), systemV: v, circuit: r.circuit })));
 
   const errorFor = (outcome: Outcome<unknown> | null, prefix: string, index: number, key: string) =>
-    outcome?.error && outcome.error.field === `${prefix}.${index}.${key}` ? outcome.error.message : undefined;
+    (outcome?.error && outcome.error.field === `${prefix}.${index}.${key}` ? outcome.error.message : undefined) ?? serverError(`${prefix}.${index}.${key === "watts" || key === "currentA" ? (prefix === "sources" ? "amount" : key) : key}`);
   const generalError = (outcome: Outcome<unknown> | null, prefixes: string[]) =>
     outcome?.error && !prefixes.some((p) => outcome.error!.field.startsWith(`${p}.`)) ? outcome.error.message : null;
 
@@ -102,7 +163,7 @@ export function ElectricalPlan() {
             <option value="24">24 V</option>
           </Select>
         </Field>
-        <Field label="Days of autonomy" error={battery.error?.field === "daysAutonomy" ? battery.error.message : undefined}>
+        <Field label="Days of autonomy" error={battery.error?.field === "daysAutonomy" ? battery.error.message : serverError("daysAutonomy")}>
           <Input name="daysAutonomy" inputMode="decimal" value={days} onChange={(e) => setDays(e.target.value)} />
         </Field>
         <Field label="Battery chemistry" hint={`Usable depth of discharge about ${Math.round(USABLE_DEPTH_OF_DISCHARGE[chemistry] * 100)} % (common practice)`}>
@@ -120,7 +181,7 @@ export function ElectricalPlan() {
         <legend className="mb-1 font-semibold">Consumers</legend>
         {consumers.map((c, i) => (
           <div key={i} className="grid grid-cols-2 items-end gap-2 border-b border-line pb-3 sm:grid-cols-[1fr_7rem_7rem_auto] sm:border-0 sm:pb-0 [&>*:first-child]:col-span-2 sm:[&>*:first-child]:col-span-1">
-            <Field label={<span className={i === 0 ? undefined : "sm:sr-only"}>Consumer</span>} id={`consumer-${i}-label`}>
+            <Field label={<span className={i === 0 ? undefined : "sm:sr-only"}>Consumer</span>} error={serverError(`consumers.${i}.label`)} id={`consumer-${i}-label`}>
               <Input value={c.label} onChange={(e) => setConsumers(consumers.map((x, j) => (j === i ? { ...x, label: e.target.value } : x)))} />
             </Field>
             <Field label={<span className={i === 0 ? undefined : "sm:sr-only"}>Current (A)</span>} error={errorFor(battery, "consumers", i, "currentA")} id={`consumer-${i}-a`}>
@@ -211,13 +272,13 @@ export function ElectricalPlan() {
         <legend className="mb-1 font-semibold">Cable runs</legend>
         {runs.map((r, i) => (
           <div key={i} className="grid grid-cols-2 items-end gap-2 border-b border-line pb-3 sm:grid-cols-[1fr_6rem_7rem_8rem_auto] sm:border-0 sm:pb-0 [&>*:first-child]:col-span-2 sm:[&>*:first-child]:col-span-1">
-            <Field label={<span className={i === 0 ? undefined : "sm:sr-only"}>Run</span>} id={`run-${i}-label`}>
+            <Field label={<span className={i === 0 ? undefined : "sm:sr-only"}>Run</span>} error={serverError(`runs.${i}.label`)} id={`run-${i}-label`}>
               <Input value={r.label} onChange={(e) => setRuns(runs.map((x, j) => (j === i ? { ...x, label: e.target.value } : x)))} />
             </Field>
-            <Field label={<span className={i === 0 ? undefined : "sm:sr-only"}>Current (A)</span>} error={cable[i]?.error?.field === "currentA" ? cable[i]?.error?.message : undefined} id={`run-${i}-a`}>
+            <Field label={<span className={i === 0 ? undefined : "sm:sr-only"}>Current (A)</span>} error={cable[i]?.error?.field === "currentA" ? cable[i]?.error?.message : serverError(`runs.${i}.currentA`)} id={`run-${i}-a`}>
               <Input inputMode="decimal" value={r.currentA} onChange={(e) => setRuns(runs.map((x, j) => (j === i ? { ...x, currentA: e.target.value } : x)))} />
             </Field>
-            <Field label={<span className={i === 0 ? undefined : "sm:sr-only"}>One way (m)</span>} error={cable[i]?.error?.field === "lengthOneWayM" ? cable[i]?.error?.message : undefined} id={`run-${i}-m`}>
+            <Field label={<span className={i === 0 ? undefined : "sm:sr-only"}>One way (m)</span>} error={cable[i]?.error?.field === "lengthOneWayM" ? cable[i]?.error?.message : serverError(`runs.${i}.lengthOneWayM`)} id={`run-${i}-m`}>
               <Input inputMode="decimal" value={r.lengthM} onChange={(e) => setRuns(runs.map((x, j) => (j === i ? { ...x, lengthM: e.target.value } : x)))} />
             </Field>
             <Field label={<span className={i === 0 ? undefined : "sm:sr-only"}>Circuit</span>} id={`run-${i}-circuit`}>
@@ -277,6 +338,24 @@ export function ElectricalPlan() {
         </Table>
       )}
       <Caution text={ELECTRICAL_CAUTION} />
+      {canSave ? (
+        <form action={formAction} className="flex flex-col gap-3 border-t border-line pt-4" aria-label="Save the 12 V plan" noValidate>
+          <input type="hidden" name="id" value={vehicleId} />
+          <input type="hidden" name="plan" value={current} />
+          <FormStatus state={state} testId="electrical-plan-status" />
+          <div className="flex flex-wrap items-center gap-3">
+            <SubmitButton>Save 12 V plan</SubmitButton>
+            <StatusPill tone={dirty ? "warn" : "ok"} size="sm" data-testid="electrical-plan-saved">
+              {savedJson === null ? "Not saved yet" : dirty ? "Changes not saved" : "Saved"}
+            </StatusPill>
+            {savedNote && <span className="text-sm text-muted">{savedNote}</span>}
+          </div>
+        </form>
+      ) : (
+        <p className="text-sm text-muted" data-testid="electrical-plan-saved">
+          {savedNote ?? "No 12 V plan is saved for this vehicle; the figures above are an example."}
+        </p>
+      )}
     </div>
   );
 }

@@ -309,7 +309,7 @@ export function MassWorkspace({ data }: { data: MassTabData }) {
       <Card>
         <CardHeader title="12 V plan" description="Daily energy, battery for the days away, recharge time and the cable for each run." />
         <CardBody>
-          <ElectricalPlan />
+          <ElectricalPlan vehicleId={vehicleId} saved={data.electricalPlan} canSave={can.plan} />
         </CardBody>
       </Card>
 

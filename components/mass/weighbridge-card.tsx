@@ -10,7 +10,14 @@ import type { Reconciliation } from "@/lib/commands/mass";
 import type { FormState } from "@/lib/server/form-state";
 import { WEIGHBRIDGE_CAUTION } from "./cautions";
 
-type Ticket = { id: string; ticketNumber: string; weighedAt: string; frontKg: number; rearKg: number; grossKg: number };
+type TicketFile = { filename: string; contentType: string; sizeBytes: number; href: string };
+type Ticket = { id: string; ticketNumber: string; weighedAt: string; frontKg: number; rearKg: number; grossKg: number; file: TicketFile | null };
+
+const FILE_WORDS: Record<string, string> = { "application/pdf": "PDF", "image/jpeg": "JPEG", "image/png": "PNG" };
+
+function sizeWords(bytes: number): string {
+  return bytes < 1024 * 1024 ? `${Math.max(1, Math.round(bytes / 1024))} KB` : `${(bytes / (1024 * 1024)).toFixed(1)} MB`;
+}
 
 const WHAT = { front: "Front axle", rear: "Rear axle", gross: "Gross" } as const;
 
@@ -29,7 +36,7 @@ function TicketForm({ vehicleId }: { vehicleId: string }) {
   }, []);
   const { state, formAction, errorOf, valueOf } = useFormAction(action);
   return (
-    <form key={formKey} action={formAction} className="grid grid-cols-2 gap-3 md:grid-cols-5" noValidate aria-label="Record a weighbridge ticket">
+    <form key={formKey} action={formAction} className="grid grid-cols-2 gap-3 md:grid-cols-5" noValidate aria-label="Record a weighbridge ticket" encType="multipart/form-data">
       <input type="hidden" name="id" value={vehicleId} />
       <div className="col-span-2 md:col-span-5">
         <FormStatus state={state} testId="ticket-status" />
@@ -49,6 +56,11 @@ function TicketForm({ vehicleId }: { vehicleId: string }) {
       <Field label="Gross (kg)" error={errorOf("grossKg")} required>
         <Input name="grossKg" inputMode="decimal" defaultValue={valueOf("grossKg")} />
       </Field>
+      <div className="col-span-2 md:col-span-5">
+        <Field label="Ticket file (optional)" hint="A PDF, or a JPEG or PNG photo of the ticket, up to 10 MB. Location data is removed from photos." error={errorOf("file")}>
+          <Input type="file" name="file" accept="application/pdf,image/jpeg,image/png,.pdf,.jpg,.jpeg,.png" />
+        </Field>
+      </div>
       <div className="col-span-2 md:col-span-5">
         <SubmitButton>Record ticket</SubmitButton>
       </div>
@@ -133,6 +145,7 @@ export function WeighbridgeCard({
               <Th numeric>Front</Th>
               <Th numeric>Rear</Th>
               <Th numeric>Gross</Th>
+              <Th>File</Th>
             </Tr>
           </THead>
           <TBody>
@@ -148,6 +161,19 @@ export function WeighbridgeCard({
                 </Td>
                 <Td numeric>
                   <Quantity value={t.grossKg} unit="kg" />
+                </Td>
+                <Td>
+                  {t.file ? (
+                    <a href={t.file.href} download={t.file.filename} className="font-semibold text-accent underline underline-offset-2 hover:text-accent-hover" data-testid="ticket-file">
+                      {t.file.filename}
+                      <span className="sr-only"> (ticket {t.ticketNumber})</span>
+                      <span className="ml-1 text-sm text-muted">
+                        {FILE_WORDS[t.file.contentType] ?? "file"}, {sizeWords(t.file.sizeBytes)}
+                      </span>
+                    </a>
+                  ) : (
+                    <span className="text-sm text-muted">No file</span>
+                  )}
                 </Td>
               </Tr>
             ))}

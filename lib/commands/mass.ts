@@ -1,11 +1,12 @@
 import "server-only";
 import { and, eq, or, sql } from "drizzle-orm";
+import { fileTypeFromBuffer } from "file-type";
 import { z } from "zod";
 import { db, type DbOrTx } from "@/db/client";
-import { editionShortLines, listPlannedItems, listTickets, loadMassContext, plannableEditions, toPlannedItem } from "@/db/mass";
+import { editionShortLines, listPlannedItems, listTickets, loadElectricalPlan, loadMassContext, plannableEditions, ticketFileRow, toPlannedItem } from "@/db/mass";
 import { ruleSetInUse } from "@/db/rule-sets";
-import { jobOffers, jobs, plannedItems, vehicles, weighbridgeTickets } from "@/db/schema";
-import { BRAKE_CAUTION, MASS_CAUTION, RULE_SET_LABEL, WEIGHBRIDGE_CAUTION } from "@/components/mass/cautions";
+import { electricalPlans, evidence, jobOffers, jobs, plannedItems, vehicles, weighbridgeTickets } from "@/db/schema";
+import { BRAKE_CAUTION, ELECTRICAL_CAUTION, MASS_CAUTION, RULE_SET_LABEL, WEIGHBRIDGE_CAUTION } from "@/components/mass/cautions";
 import {
   computeMass,
   EMPTY_LOADING,
@@ -18,12 +19,16 @@ import {
   type MassFigures,
   type PlannedItem,
 } from "@/components/mass/model";
+import { electricalPlanSchema, summariseElectricalPlan, type ElectricalPlan, type ElectricalPlanSummary } from "@/lib/electrical";
 import { reconcileWeighbridge, type ReconcileResult } from "@/lib/mass";
 import type { Actor } from "@/lib/permissions";
 import type { StatementData } from "@/lib/statement";
 import { springAdvice } from "@/lib/suspension";
 import { AppError, notFound } from "@/lib/server/errors";
 import { command, query } from "@/lib/server/operation";
+import { sha256OfBytes, storage } from "@/lib/server/storage";
+import { checkUploadSize, displayFileName, EVIDENCE_MAX_BYTES, evidenceStorageKey, EXTENSIONS, TYPE_WORDS, type AcceptedType } from "@/lib/uploads";
+import { prepareUpload } from "./evidence";
 
 /**
  * Mass and fit-out of one vehicle: the figures of record (axle loads, checks, binding limit),
@@ -309,6 +314,47 @@ const ticketKg = (what: string) =>
     .positive({ error: `Enter the ${what} mass from the ticket in kg` })
     .max(20_000, { error: `The ${what} mass looks wrong: more than 20,000 kg` });
 
+/** The ticket's file may be a PDF or a photo of the paper (JPEG or PNG); the bytes decide, not the name. */
+export const TICKET_FILE_TYPES = ["application/pdf", "image/jpeg", "image/png"] as const satisfies readonly AcceptedType[];
+export const TICKET_FILE_MAX_BYTES = EVIDENCE_MAX_BYTES;
+
+/** An empty file input (no file chosen) arrives as a nameless zero-byte file: that is no file. */
+const ticketFileField = z.preprocess(
+  (v) => (v === "" || v === null || (v instanceof Blob && v.size === 0 && !(v as File).name) ? undefined : v),
+  z
+    .custom<Blob>((v) => v instanceof Blob, { error: "Attach the ticket as a file (PDF, JPEG or PNG)" })
+    .meta({ description: "The ticket as a PDF, JPEG or PNG of at most 10 MiB (optional)", override: { type: "string", format: "binary" } })
+    .optional(),
+);
+
+const fileRefusal = (message: string) => new AppError("validation_failed", message, [{ field: "file", message }]);
+
+/**
+ * Checks and cleans a ticket file with the evidence upload checks: size first (413), then the
+ * type read from its bytes (a PDF, JPEG or PNG, else 422 naming `file`); photos are re-encoded,
+ * which drops EXIF (location included).
+ */
+export async function prepareTicketFile(file: Blob): Promise<{ bytes: Buffer; type: AcceptedType }> {
+  const tooBig = checkUploadSize(file.size, TICKET_FILE_MAX_BYTES);
+  if (tooBig) {
+    if (tooBig.status === 413) throw new AppError("payload_too_large", tooBig.message, [{ field: "file", message: tooBig.message }]);
+    throw fileRefusal(tooBig.message);
+  }
+  const head = await fileTypeFromBuffer(new Uint8Array(await file.slice(0, 4100).arrayBuffer()));
+  const names = TICKET_FILE_TYPES.map((t) => TYPE_WORDS[t]);
+  const words = `${names.slice(0, -1).join(", ")} or ${names[names.length - 1]}`;
+  if (!head || !(TICKET_FILE_TYPES as readonly string[]).includes(head.mime)) {
+    throw fileRefusal(`The ticket file must be a ${words}; this file's content is ${head ? head.mime : "not one of those"}, whatever its name says`);
+  }
+  try {
+    return await prepareUpload(file, "weighbridge_ticket");
+  } catch (error) {
+    // The evidence checks answer 415 for content they cannot use; on this form it is a field error.
+    if (error instanceof AppError && error.code === "unsupported_media_type") throw fileRefusal(error.message);
+    throw error;
+  }
+}
+
 export const ticketInputSchema = z.object({
   id: vehicleId,
   weighedAt: z
@@ -334,6 +380,7 @@ export const ticketInputSchema = z.object({
   rearKg: ticketKg("rear axle"),
   grossKg: ticketKg("gross"),
   jobId: z.string().trim().max(64).optional().transform((v) => (v ? v : null)),
+  file: ticketFileField,
 });
 
 export type Reconciliation = (ReconcileResult & { computedFrom: string; toleranceKg: number }) | { unavailable: string };
@@ -400,6 +447,33 @@ export const recordWeighbridgeTicket = command({
         { field: "ticketNumber", message: "This ticket is already recorded" },
       ]);
     }
+    // The file is kept like any evidence file: checked, cleaned, stored under our own key before
+    // its row is written (a failed transaction leaves at worst an unreferenced file), SHA-256 kept.
+    let file: { id: string; filename: string; contentType: AcceptedType; sizeBytes: number; sha256: string } | null = null;
+    if (input.file) {
+      const prepared = await prepareTicketFile(input.file);
+      const evidenceId = crypto.randomUUID();
+      const extension = EXTENSIONS[prepared.type];
+      const storageKey = evidenceStorageKey(user.orgId, evidenceId, extension);
+      const sha256 = sha256OfBytes(prepared.bytes);
+      await storage().put(storageKey, prepared.bytes, prepared.type);
+      const filename = displayFileName((input.file as File).name, `ticket-${input.ticketNumber}.${extension}`).replace(/\.[A-Za-z0-9]{1,5}$/, "") + `.${extension}`;
+      await tx.insert(evidence).values({
+        id: evidenceId,
+        orgId: user.orgId,
+        jobId: null,
+        kind: "weighbridge_ticket",
+        // A manager's own ticket needs no review; a workshop's waits for one.
+        status: user.role === "contractor" ? "lodged" : "accepted",
+        filename,
+        contentType: prepared.type,
+        sizeBytes: prepared.bytes.length,
+        sha256,
+        storageKey,
+        uploadedBy: user.userId,
+      });
+      file = { id: evidenceId, filename, contentType: prepared.type, sizeBytes: prepared.bytes.length, sha256 };
+    }
     const [ticket] = await tx
       .insert(weighbridgeTickets)
       .values({
@@ -411,11 +485,17 @@ export const recordWeighbridgeTicket = command({
         frontKg: input.frontKg,
         rearKg: input.rearKg,
         grossKg: input.grossKg,
+        evidenceId: file?.id ?? null,
         recordedBy: user.userId,
       })
       .returning();
     if (!ticket) throw new Error("ticket insert returned nothing");
-    await audit({ action: "weighbridge.record", entityType: "weighbridge_ticket", entityId: ticket.id, after: { ...ticket } });
+    await audit({
+      action: "weighbridge.record",
+      entityType: "weighbridge_ticket",
+      entityId: ticket.id,
+      after: { ...ticket, file: file ? { filename: file.filename, contentType: file.contentType, sizeBytes: file.sizeBytes, sha256: file.sha256 } : null },
+    });
 
     // The newest weighing is the vehicle's measured mass; an older ticket recorded late is kept but does not replace it.
     const isLatest = !vehicle.measuredAt || input.weighedAt.getTime() >= vehicle.measuredAt.getTime();
@@ -434,7 +514,43 @@ export const recordWeighbridgeTicket = command({
       await audit({ action: "vehicle.measured_masses", entityType: "vehicle", entityId: vehicle.id, before, after, reason: `Weighbridge ticket ${input.ticketNumber}` });
     }
     const reconciliation = reconcileTicket(context, { ...input });
-    return { ticket, measuredUpdated: isLatest, reconciliation, caution: WEIGHBRIDGE_CAUTION };
+    return { ticket: { ...ticket, file: file ? { ...file, href: ticketFileHref(vehicle.id, ticket.id) } : null }, measuredUpdated: isLatest, reconciliation, caution: WEIGHBRIDGE_CAUTION };
+  },
+});
+
+/** Where a ticket's file is downloaded: only through the app, which checks who asks. */
+export function ticketFileHref(vehicle: string, ticketId: string): string {
+  return `/api/vehicles/${encodeURIComponent(vehicle)}/weighbridge/${encodeURIComponent(ticketId)}/file`;
+}
+
+type TicketRow = Awaited<ReturnType<typeof listTickets>>[number];
+
+/** A ticket as the API and the tab show it, with its file (if any) and the app address to fetch it. */
+export function ticketView(vehicle: string, t: TicketRow) {
+  return {
+    id: t.id,
+    ticketNumber: t.ticketNumber,
+    weighedAt: t.weighedAt.toISOString(),
+    frontKg: t.frontKg,
+    rearKg: t.rearKg,
+    grossKg: t.grossKg,
+    jobId: t.jobId,
+    file: t.file ? { ...t.file, href: ticketFileHref(vehicle, t.id) } : null,
+  };
+}
+
+/** GET /api/vehicles/{id}/weighbridge/{ticketId}/file: the stored bytes, for a user who may read the vehicle's tickets. */
+export const weighbridgeTicketFile = query({
+  name: "weighbridge.file",
+  input: z.object({ id: vehicleId, ticketId: z.string({ error: "ticketId is required" }).trim().min(1, { error: "ticketId is required" }).max(64) }),
+  permission: ["read", "WeighbridgeTicket"],
+  run: async ({ user, input }) => {
+    const { context } = await contextOrNotFound(db(), user, input.id);
+    const row = await ticketFileRow(db(), user.orgId, context.vehicle.id, input.ticketId);
+    if (!row) throw notFound("That ticket's file");
+    const stored = await storage().get(row.storageKey);
+    if (!stored) throw notFound("That ticket's file");
+    return { bytes: stored.bytes, contentType: row.contentType, filename: row.filename, sha256: row.sha256 };
   },
 });
 
@@ -448,10 +564,98 @@ export const listWeighbridgeQuery = query({
     const tickets = await listTickets(db(), user.orgId, context.vehicle.id);
     const latest = tickets[0];
     return {
-      items: tickets,
+      items: tickets.map((t) => ticketView(context.vehicle.id, t)),
       reconciliation: latest ? reconcileTicket(context, latest) : null,
       toleranceKg: context.settings.weighbridgeToleranceKg,
       caution: WEIGHBRIDGE_CAUTION,
+    };
+  },
+});
+
+// ─── 12 V plan ───────────────────────────────────────────────────────────────
+
+export type SavedElectricalPlan = {
+  plan: ElectricalPlan;
+  summary: ElectricalPlanSummary;
+  version: number;
+  updatedAt: string;
+  updatedBy: string | null;
+};
+
+async function savedPlanOf(database: DbOrTx, orgId: string, vehicle: string): Promise<SavedElectricalPlan | null> {
+  const saved = await loadElectricalPlan(database, orgId, vehicle);
+  if (!saved) return null;
+  return { plan: saved.plan, summary: summariseElectricalPlan(saved.plan), version: saved.version, updatedAt: saved.updatedAt.toISOString(), updatedBy: saved.updatedByName };
+}
+
+/** GET /api/vehicles/{id}/electrical-plan: the saved plan with its results, or `plan: null`. */
+export const electricalPlanQuery = query({
+  name: "electrical_plan.read",
+  input: z.object({ id: vehicleId }),
+  permission: ["read", "MassPlan"],
+  run: async ({ user, input }) => {
+    const { context } = await contextOrNotFound(db(), user, input.id);
+    const saved = await savedPlanOf(db(), user.orgId, context.vehicle.id);
+    return { vehicleId: context.vehicle.id, ...(saved ?? { plan: null, summary: null, version: 0, updatedAt: null, updatedBy: null }), caution: ELECTRICAL_CAUTION };
+  },
+});
+
+/** The save's input: the plan itself (a JSON body, or a form's `plan` field holding JSON) and the vehicle id. */
+export const saveElectricalPlanInput = z.preprocess(
+  (raw) => {
+    if (!raw || typeof raw !== "object") return raw;
+    const source = raw as Record<string, unknown>;
+    if (typeof source.plan !== "string") return raw;
+    try {
+      return { ...(JSON.parse(source.plan) as Record<string, unknown>), id: source.id };
+    } catch {
+      return { id: source.id, plan: Symbol("unreadable") };
+    }
+  },
+  electricalPlanSchema.extend({ id: vehicleId }),
+);
+
+/** PUT /api/vehicles/{id}/electrical-plan: replaces the vehicle's current plan, audited. */
+export const saveElectricalPlan = command({
+  name: "electrical_plan.save",
+  input: saveElectricalPlanInput,
+  permission: ["manage", "MassPlan"],
+  run: async ({ user, input, tx, audit, now }) => {
+    const { context } = await vehicleInScope(tx, user, input.id);
+    const { id: _vehicle, ...plan } = input;
+    // The calculators refuse what the schema cannot see (a day of use no battery can hold): 422 naming the field.
+    const summary = summariseElectricalPlan(plan);
+    const before = await loadElectricalPlan(tx, user.orgId, context.vehicle.id);
+    let rowId: string;
+    let version: number;
+    if (before) {
+      version = before.version + 1;
+      await tx
+        .update(electricalPlans)
+        .set({ plan, version, updatedBy: user.userId, updatedAt: now })
+        .where(and(eq(electricalPlans.id, before.id), eq(electricalPlans.orgId, user.orgId)));
+      rowId = before.id;
+    } else {
+      version = 1;
+      const [row] = await tx.insert(electricalPlans).values({ orgId: user.orgId, vehicleId: context.vehicle.id, plan, version, updatedBy: user.userId }).returning({ id: electricalPlans.id });
+      if (!row) throw new Error("electrical plan insert returned nothing");
+      rowId = row.id;
+    }
+    await audit({
+      action: "electrical_plan.save",
+      entityType: "electrical_plan",
+      entityId: rowId,
+      before: before ? { vehicleId: context.vehicle.id, version: before.version, ...before.plan } : null,
+      after: { vehicleId: context.vehicle.id, version, ...plan },
+    });
+    return {
+      vehicleId: context.vehicle.id,
+      plan,
+      summary,
+      version,
+      updatedAt: now.toISOString(),
+      updatedBy: user.name,
+      caution: ELECTRICAL_CAUTION,
     };
   },
 });
@@ -475,8 +679,9 @@ export const massTabQuery = query({
       context,
       ruleSet,
       editions: canPlan ? await plannableEditions(db(), user.orgId) : [],
-      tickets: tickets.map((t) => ({ id: t.id, ticketNumber: t.ticketNumber, weighedAt: t.weighedAt.toISOString(), frontKg: t.frontKg, rearKg: t.rearKg, grossKg: t.grossKg })),
+      tickets: tickets.map((t) => ticketView(context.vehicle.id, t)),
       reconciliation: latest ? reconcileTicket(context, latest) : null,
+      electricalPlan: await savedPlanOf(db(), user.orgId, context.vehicle.id),
       can: { plan: canPlan, readTickets: canReadTickets, recordTicket: canRecordTicket, readRuleSets: user.ability.can("read", "OrgSettings") },
     };
   },
@@ -514,6 +719,50 @@ export function loadingText(loading: Loading, personMassKg: number): string {
   if (loading.trailerAtmKg > 0) parts.push(`trailer ATM ${loading.trailerAtmKg} kg with ${loading.towballKg} kg on the towball`);
   const text = parts.join(", ");
   return `${text.charAt(0).toUpperCase()}${text.slice(1)}.`;
+}
+
+const CHEMISTRY_WORDS: Record<ElectricalPlan["chemistry"], string> = {
+  "lead-acid": "flooded lead-acid",
+  agm: "AGM",
+  "lithium-iron-phosphate": "lithium iron phosphate",
+};
+
+/** The saved 12 V plan as the statement prints it. */
+export function electricalStatement(saved: SavedElectricalPlan | null): StatementData["electrical"] {
+  if (!saved) return null;
+  const { summary, plan } = saved;
+  const b = summary.battery;
+  const r = summary.recharge;
+  const suggested = `for example ${b.suggestedBattery.count > 1 ? `${b.suggestedBattery.count} x ` : ""}${b.suggestedBattery.capacityAhEach} Ah`;
+  return {
+    systemV: summary.systemV,
+    chemistry: CHEMISTRY_WORDS[summary.chemistry],
+    daysAutonomy: summary.daysAutonomy,
+    consumers: plan.consumers.length,
+    dailyAh: b.dailyAh,
+    dailyWh: b.dailyWh,
+    requiredCapacityAh: b.requiredCapacityAh,
+    usableDepthPct: b.usableDepthOfDischargePct,
+    suggestedBattery: suggested,
+    rechargeText: r
+      ? `Charging: ${plan.sources.length} source${plan.sources.length === 1 ? "" : "s"} put in ${r.chargeA.toFixed(1)} A together; the ${summary.daysAutonomy}-day use comes back in ${r.hoursToRecover.toFixed(1)} h of charging${
+          r.daysToRecover !== null ? ` (${Math.round(r.dailyAhIn)} Ah a day in against ${Math.round(b.dailyAh)} Ah used: ${r.dailyAhIn >= b.dailyAh ? "keeps up" : "falls behind"})` : ""
+        }.`
+      : "No charging sources are planned.",
+    runs: summary.runs.map((run) => ({
+      label: run.label,
+      circuit: `${run.circuit}, ${run.maxDropPct} % limit`,
+      currentA: run.currentA,
+      lengthOneWayM: run.lengthOneWayM,
+      size: run.sizeLabel,
+      dropV: run.dropV,
+      dropPct: run.dropPct,
+      withinLimit: run.withinLimit,
+      fuseA: run.fuseA,
+      fuseLocation: run.fuseLocation,
+    })),
+    savedText: `Saved plan, version ${saved.version}, ${new Date(saved.updatedAt).toLocaleDateString("en-AU", { day: "numeric", month: "short", year: "numeric" })}${saved.updatedBy ? ` by ${saved.updatedBy}` : ""}.`,
+  };
 }
 
 /** GET /api/vehicles/{id}/statement: the data of the printable statement (rendered by the route). */
@@ -599,11 +848,12 @@ export const statementQuery = query({
         position: positionText(p),
         kind: p.massKind === "variable" ? "Variable" : "Constant",
       })),
+      electrical: electricalStatement(await savedPlanOf(db(), user.orgId, context.vehicle.id)),
       measured: context.measured
         ? { ...context.measured, measuredAt: context.measured.measuredAt ? new Date(context.measured.measuredAt) : null }
         : null,
       ruleSet: { name: response.ruleSet.name, note: response.ruleSet.note, label: RULE_SET_LABEL },
-      cautions: [MASS_CAUTION, BRAKE_CAUTION],
+      cautions: [MASS_CAUTION, BRAKE_CAUTION, ELECTRICAL_CAUTION],
     };
     return { data, filename: `mass-statement-${context.vehicle.fleetNumber.replace(/[^A-Za-z0-9-]+/g, "_")}.pdf` };
   },

@@ -57,3 +57,17 @@ export {
   type ChargeSourceResult,
 } from "./recharge";
 export { batteryCalcInputSchema, batteryCalc, type BatteryCalcInput, type BatteryCalcResult } from "./battery-calc";
+export {
+  PLAN_CHEMISTRIES,
+  PLAN_SOURCE_KINDS,
+  PLAN_CIRCUITS,
+  electricalPlanSchema,
+  planConsumerSchema,
+  planSourceSchema,
+  planRunSchema,
+  summariseElectricalPlan,
+  type ElectricalPlan,
+  type ElectricalPlanInput,
+  type ElectricalPlanSummary,
+  type CableRunSummary,
+} from "./plan";

@@ -20,14 +20,17 @@ import { getImportFile, importTemplate, listImports, readVehicleUpload } from "@
 import { cancelJob, closeJob, getJob, listJobs, offerJob, progressJob, raiseJob, signOffJob } from "@/lib/commands/jobs";
 import {
   addPlannedItem,
+  electricalPlanQuery,
   listPlanQuery,
   listWeighbridgeQuery,
   planEdition,
   recordWeighbridgeTicket,
   removePlannedItem,
+  saveElectricalPlan,
   statementQuery,
   updatePlannedItem,
   vehicleMassQuery,
+  weighbridgeTicketFile,
 } from "@/lib/commands/mass";
 import { listMembers } from "@/lib/commands/organisation";
 import { createPlatform, getPlatform, listPlatforms, updatePlatform } from "@/lib/commands/platforms";
@@ -168,7 +171,29 @@ export const API_ROUTES: ApiRoute[] = [
   { method: "patch", path: "/api/vehicles/{id}/plan/{itemId}", summary: "Change a planned item", tag: "Mass", op: updatePlannedItem, in: "json", success: { description: "The plan" } },
   { method: "delete", path: "/api/vehicles/{id}/plan/{itemId}", summary: "Remove a planned item", tag: "Mass", op: removePlannedItem, in: "none", success: { description: "The plan" } },
   { method: "get", path: "/api/vehicles/{id}/weighbridge", summary: "Weighbridge tickets of the vehicle", tag: "Mass", op: listWeighbridgeQuery, in: "none", success: { description: "The tickets" } },
-  { method: "post", path: "/api/vehicles/{id}/weighbridge", summary: "Record a weighbridge ticket", tag: "Mass", op: recordWeighbridgeTicket, in: "json", success: { status: 201, description: "The ticket and its reconciliation" } },
+  {
+    method: "post",
+    path: "/api/vehicles/{id}/weighbridge",
+    summary: "Record a weighbridge ticket, with its file (multipart)",
+    description:
+      "multipart/form-data (or JSON without a file). `file` is optional: a PDF, JPEG or PNG of at most 10 MiB, checked by its content (another type answers 422 naming `file`, a larger file 413); photos are re-encoded without EXIF or location data and the stored file's SHA-256 is kept. The file is fetched only through GET /api/vehicles/{id}/weighbridge/{ticketId}/file.",
+    tag: "Mass",
+    op: recordWeighbridgeTicket,
+    in: "multipart",
+    conflicts: true,
+    success: { status: 201, description: "The ticket (with its file's name, type, size, SHA-256 and download address) and its reconciliation" },
+  },
+  { method: "get", path: "/api/vehicles/{id}/weighbridge/{ticketId}/file", summary: "The file of a weighbridge ticket", tag: "Mass", op: weighbridgeTicketFile, in: "none", success: { description: "The stored file", kind: "file" } },
+  { method: "get", path: "/api/vehicles/{id}/electrical-plan", summary: "The vehicle's saved 12 V plan with its results", tag: "Mass", op: electricalPlanQuery, in: "none", success: { description: "{ plan, summary, version, updatedAt, updatedBy, caution } (plan null when none is saved)" } },
+  {
+    method: "put",
+    path: "/api/vehicles/{id}/electrical-plan",
+    summary: "Save the vehicle's 12 V plan (replaces the current one)",
+    tag: "Mass",
+    op: saveElectricalPlan,
+    in: "json",
+    success: { description: "The saved plan with its results (daily Ah, battery, recharge, cable runs with size, drop and fuse)" },
+  },
   { method: "get", path: "/api/platforms", summary: "Platforms with the maker's figures", tag: "Vehicles", op: listPlatforms, in: "none", success: { description: "{ items }" } },
   { method: "post", path: "/api/platforms", summary: "Add a platform", tag: "Vehicles", op: createPlatform, in: "json", conflicts: true, success: { status: 201, description: "The platform" } },
   { method: "get", path: "/api/platforms/{id}", summary: "One platform", tag: "Vehicles", op: getPlatform, in: "none", success: { description: "The platform" } },

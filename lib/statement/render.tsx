@@ -255,6 +255,44 @@ export function StatementDocument({ data }: { data: StatementData }) {
           </Section>
         )}
 
+        <Section title="12 V plan">
+          {data.electrical ? (
+            <View>
+              <Text>
+                {data.electrical.consumers} consumer{data.electrical.consumers === 1 ? "" : "s"} use {nf.format(data.electrical.dailyWh)} Wh a day = {nf1.format(data.electrical.dailyAh)} Ah at{" "}
+                {data.electrical.systemV} V. For {nf1.format(data.electrical.daysAutonomy)} day{data.electrical.daysAutonomy === 1 ? "" : "s"} of autonomy with {data.electrical.chemistry} at{" "}
+                {nf.format(data.electrical.usableDepthPct)} % usable: {nf.format(data.electrical.requiredCapacityAh)} Ah needed ({data.electrical.suggestedBattery}).
+              </Text>
+              {data.electrical.rechargeText && <Text style={{ marginTop: 2 }}>{data.electrical.rechargeText}</Text>}
+              {data.electrical.runs.length > 0 && (
+                <View style={{ marginTop: 4 }}>
+                  <Table
+                    cols={[
+                      { title: "Cable run", width: "27%" },
+                      { title: "Load", width: "15%", numeric: true },
+                      { title: "Cable", width: "13%", numeric: true },
+                      { title: "Drop", width: "17%", numeric: true },
+                      { title: "Fuse", width: "9%", numeric: true },
+                      { title: "Fuse goes", width: "19%" },
+                    ]}
+                    rows={data.electrical.runs.map((r) => [
+                      `${r.label} (${r.circuit})`,
+                      `${nf1.format(r.currentA)} A, ${nf1.format(r.lengthOneWayM)} m`,
+                      r.size,
+                      `${r.dropV.toFixed(2)} V (${nf1.format(r.dropPct)} %)${r.withinLimit ? "" : " over"}`,
+                      `${nf.format(r.fuseA)} A`,
+                      r.fuseLocation,
+                    ])}
+                  />
+                </View>
+              )}
+              <Text style={{ color: MUTED, marginTop: 4 }}>{data.electrical.savedText}</Text>
+            </View>
+          ) : (
+            <Text>No 12 V plan is saved for this vehicle.</Text>
+          )}
+        </Section>
+
         <Section title="Weighbridge">
           {data.measured ? (
             <Text>

@@ -33,6 +33,21 @@ export type StatementData = {
   }>;
   fitted: Array<{ code: string; label: string; quantity: number; massKg: number | null; position: string; evidence: string }>;
   planned: Array<{ label: string; massKg: number; position: string; kind: string }>;
+  /** The vehicle's saved 12 V plan, summarised; null when none is saved. */
+  electrical: {
+    systemV: number;
+    chemistry: string;
+    daysAutonomy: number;
+    consumers: number;
+    dailyAh: number;
+    dailyWh: number;
+    requiredCapacityAh: number;
+    usableDepthPct: number;
+    suggestedBattery: string;
+    rechargeText: string | null;
+    runs: Array<{ label: string; circuit: string; currentA: number; lengthOneWayM: number; size: string; dropV: number; dropPct: number; withinLimit: boolean; fuseA: number; fuseLocation: string }>;
+    savedText: string;
+  } | null;
   measured: { frontKg: number; rearKg: number; grossKg: number | null; measuredAt: Date | null } | null;
   ruleSet: { name: string; note: string; label: string };
   cautions: string[];

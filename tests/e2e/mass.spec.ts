@@ -4,6 +4,8 @@ import { idOf, storageFor } from "./support";
 
 // MH-038 (a Marrak Outback 300 wagon) carries no standard yet, so nothing else moves its figures.
 const FLEET = "MH-038";
+// MH-037 (a Corvane Trailhand 79) is used by no other browser test: its ticket and 12 V plan are this file's own.
+const RECORDS_FLEET = "MH-037";
 
 async function recordFigures(page: Page) {
   // Wait until the server has confirmed the figures the browser computed.
@@ -35,12 +37,14 @@ test.describe("the mass planner", () => {
     await expect(page.getByRole("heading", { name: "How much can it still carry?" })).toBeVisible();
     await expect(page.getByRole("note", { name: "Caution" }).first()).toContainText("certified weighbridge");
 
-    // A loaded touring trip with nobody aboard yet: 600 kg of gear in the tub.
+    // Two aboard and 260 kg of gear in the back: the front-heavy wagon's front axle binds first
+    // (demo figures: front 1,800 kg rating, 1,390 kg kerb front plus 65 % of the two occupants).
     const loading = page.getByRole("form", { name: "Loading" });
-    await loading.getByLabel("Occupants").fill("0");
-    await loading.getByLabel("Cargo allowance (kg)").fill("600");
+    await loading.getByLabel("Occupants").fill("2");
+    await loading.getByLabel("Cargo allowance (kg)").fill("260");
     const before = await recordFigures(page);
     expect(before.limit).toBe("front");
+    expect(before.text).toContain("Binding limit: Front axle");
 
     await addPlannedItem(page, "Rear bar with wheel carrier", "60");
     await addPlannedItem(page, "Second spare wheel", "40");
@@ -68,5 +72,44 @@ test.describe("the mass planner", () => {
       await page.getByRole("button", { name: `Remove ${label} from the plan` }).click();
       await expect(page.getByTestId("planned-item").filter({ hasText: label })).toHaveCount(0);
     }
+  });
+
+  test("a ticket is recorded with its file, and the 12 V plan saved stays after a reload", async ({ page }) => {
+    test.setTimeout(90_000);
+    const id = await idOf("vehicles", "fleet_number = ?", [RECORDS_FLEET]);
+    expect((await page.goto(`/vehicles/${id}/mass`))?.status()).toBe(200);
+
+    // A weighbridge ticket with its PDF (an invented ticket; the figures add up).
+    const ticketPdf = Buffer.from("%PDF-1.4\n1 0 obj <<>> endobj\ntrailer <<>>\n%%EOF\n", "latin1");
+    const ticket = page.getByRole("form", { name: "Record a weighbridge ticket" });
+    await ticket.getByLabel("Ticket number").fill("E2E-5521");
+    await ticket.getByLabel("Front axle (kg)").fill("1420");
+    await ticket.getByLabel("Rear axle (kg)").fill("1090");
+    await ticket.getByLabel("Gross (kg)").fill("2510");
+    await ticket.getByLabel("Ticket file (optional)").setInputFiles({ name: "ticket-5521.pdf", mimeType: "application/pdf", buffer: ticketPdf });
+    await ticket.getByRole("button", { name: "Record ticket" }).click();
+    await expect(page.getByTestId("ticket-status")).toContainText("Ticket E2E-5521 recorded");
+    const link = page.getByTestId("ticket-file").filter({ hasText: "ticket-5521.pdf" });
+    await expect(link).toBeVisible();
+    const downloading = page.waitForEvent("download");
+    await link.click();
+    const download = await downloading;
+    expect(download.suggestedFilename()).toBe("ticket-5521.pdf");
+    expect((await readFile((await download.path())!)).equals(ticketPdf)).toBe(true);
+
+    // The 12 V plan: three days away and a hungrier fridge, saved.
+    await page.getByLabel("Days of autonomy").fill("3");
+    await page.locator("#consumer-0-a").fill("5");
+    await expect(page.getByTestId("battery-result")).toContainText("for 3 days");
+    await expect(page.getByRole("note", { name: "Caution" }).filter({ hasText: "Wiring follows" })).toBeVisible();
+    await page.getByRole("button", { name: "Save 12 V plan" }).click();
+    await expect(page.getByTestId("electrical-plan-status")).toContainText("12 V plan saved");
+    await expect(page.getByTestId("electrical-plan-saved").first()).toHaveText("Saved");
+
+    await page.reload();
+    await expect(page.getByLabel("Days of autonomy")).toHaveValue("3");
+    await expect(page.locator("#consumer-0-a")).toHaveValue("5");
+    await expect(page.getByTestId("electrical-plan-saved").first()).toHaveText("Saved");
+    await expect(page.getByTestId("ticket-file").filter({ hasText: "ticket-5521.pdf" })).toBeVisible();
   });
 });

@@ -1,7 +1,7 @@
 "use server";
 
 import { revalidatePath } from "next/cache";
-import { addPlannedItem, planEdition, recordWeighbridgeTicket, removePlannedItem, updatePlannedItem } from "@/lib/commands/mass";
+import { addPlannedItem, planEdition, recordWeighbridgeTicket, removePlannedItem, saveElectricalPlan, updatePlannedItem } from "@/lib/commands/mass";
 import { runFormAction } from "@/lib/server/actions";
 import type { FormState } from "@/lib/server/form-state";
 
@@ -39,6 +39,12 @@ export async function recordTicketAction(_prev: FormState, formData: FormData) {
   const state = await runFormAction(recordWeighbridgeTicket, formData, (r) =>
     r.measuredUpdated ? `Ticket ${r.ticket.ticketNumber} recorded; the vehicle's measured masses are updated` : `Ticket ${r.ticket.ticketNumber} recorded (older than the last weighing, so the measured masses stay)`,
   );
+  if (state.status === "ok") revalidatePath(tabPath(formData));
+  return state;
+}
+
+export async function saveElectricalPlanAction(_prev: FormState, formData: FormData) {
+  const state = await runFormAction(saveElectricalPlan, formData, (r) => `12 V plan saved (version ${r.version})`);
   if (state.status === "ok") revalidatePath(tabPath(formData));
   return state;
 }
