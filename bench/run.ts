@@ -1,6 +1,13 @@
-/** `npm run bench`: every benchmark, each printed with its same-run baseline and the ratio. */
+/**
+ * `npm run bench [-- <name> …] [--no-build]`: every benchmark (or the named ones), each printed
+ * with its same-run baseline and the ratio. --no-build makes the API benchmark reuse the last
+ * production build as it is.
+ */
 import "./server-only-shim";
 import { report, type BenchResult } from "./support";
+
+const flags = process.argv.slice(2).filter((a) => a.startsWith("--"));
+const only = process.argv.slice(2).filter((a) => !a.startsWith("--"));
 
 const benches: [string, () => Promise<BenchResult[]>][] = [
   ["variance", async () => (await import("./variance")).run()],
@@ -23,9 +30,9 @@ const benches: [string, () => Promise<BenchResult[]>][] = [
       ];
     },
   ],
+  ["vehicles-api", async () => (await import("./vehicles-api")).run({ noBuild: flags.includes("--no-build") })],
 ];
 
-const only = process.argv.slice(2);
 const results: BenchResult[] = [];
 for (const [name, runBench] of benches) {
   if (only.length && !only.includes(name)) continue;

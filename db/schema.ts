@@ -253,8 +253,14 @@ export const vehicles = sqliteTable(
     index("vehicles_org_depot").on(t.orgId, t.depotId),
     index("vehicles_org_platform").on(t.orgId, t.platformId),
     index("vehicles_org_state").on(t.orgId, t.state),
-    index("vehicles_org_edition").on(t.orgId, t.editionId),
+    // "These few vehicles of this organisation" (org_id = ? and id in (…), as the variance
+    // badges of a register page ask): vehicles_org_id answers it directly; where SQLite prefers
+    // to walk the organisation by edition or by fleet number instead, the trailing id lets it
+    // filter inside the index rather than read every vehicle row of the organisation.
+    index("vehicles_org_edition").on(t.orgId, t.editionId, t.id),
     index("vehicles_org_registration").on(t.orgId, t.registration),
+    index("vehicles_org_id").on(t.orgId, t.id),
+    index("vehicles_org_fleet_number_id").on(t.orgId, t.fleetNumber, t.id),
   ],
 );
 
