@@ -1,4 +1,4 @@
-import { and, inArray, sql, type SQL } from "drizzle-orm";
+import { sql, type SQL } from "drizzle-orm";
 import type { Actor } from "@/lib/permissions";
 import {
   rollUpFleet,
@@ -9,7 +9,7 @@ import {
 } from "@/lib/variance";
 import type { DbOrTx } from "./client";
 import { vehicles, vehicleVarianceSummaries } from "./schema";
-import { vehicleScope } from "./scope";
+import { namedVehicles } from "./scope";
 import { filterWhere, loadVariancesFor, type LoadedVehicleVariance, type VarianceFilter } from "./variance";
 
 /**
@@ -278,8 +278,7 @@ export async function varianceFiguresFor(
   options: SummaryReadOptions = {},
 ): Promise<VehicleVarianceFigures[]> {
   if (vehicleIds.length === 0) return [];
-  const ids = sql`(select value from json_each(${JSON.stringify([...new Set(vehicleIds)])}))`;
-  return figuresWhere(db, actor, and(vehicleScope(actor), inArray(vehicles.id, ids))!, now, options);
+  return figuresWhere(db, actor, namedVehicles(actor, vehicleIds), now, options);
 }
 
 /**

@@ -13,7 +13,7 @@ import {
 } from "@/lib/variance";
 import type { DbOrTx } from "./client";
 import { concessions, editionLines, editions, evidence, fitments, jobs, lineDependencies, vehicles } from "./schema";
-import { vehicleScope } from "./scope";
+import { namedVehicles, vehicleScope } from "./scope";
 
 /**
  * Variance read from the database: rows of editions, fitments, concessions and evidence mapped
@@ -359,9 +359,7 @@ export async function loadVariancesFor(
   now: Date,
 ): Promise<LoadedVehicleVariance[]> {
   if (vehicleIds.length === 0) return [];
-  // One bound parameter for any number of ids (SQLite caps bound parameters per statement).
-  const ids = sql`(select value from json_each(${JSON.stringify([...new Set(vehicleIds)])}))`;
-  return loadVariances(db, actor.orgId, and(vehicleScope(actor), inArray(vehicles.id, ids))!, now, vehicleIds.length < 1000);
+  return loadVariances(db, actor.orgId, namedVehicles(actor, vehicleIds), now, vehicleIds.length < 1000);
 }
 
 // The register's status filter reads the stored summaries (db/variance-summary.ts).
