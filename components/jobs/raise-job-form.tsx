@@ -33,7 +33,7 @@ export function RaiseJobForm({ vehicleId, fleetNumber, lines, repairFor }: { veh
       {repairFor && <input type="hidden" name="defectId" value={repairFor.id} />}
       {repairFor && (
         <p className="rounded-md border border-line bg-surface-sunken p-3 text-sm" data-testid="repair-for">
-          This job repairs the reported defect <span className="font-semibold">{repairFor.title}</span>. Raising it links the defect and marks it in repair.
+          This job repairs the reported defect “<span className="font-semibold">{repairFor.title}</span>”; raising it links the defect and marks it in repair.
         </p>
       )}
       {errorOf("defectId") && <p className="text-sm font-semibold text-danger">{errorOf("defectId")}</p>}

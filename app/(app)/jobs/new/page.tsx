@@ -53,7 +53,7 @@ export default async function NewJobPage({ searchParams }: { searchParams: Promi
     found && found.defect.vehicleId === plan.vehicle.id && found.defect.state === "triaged"
       ? {
           id: found.defect.id,
-          title: defectTitle(found.defect.category, found.defect.description),
+          title: defectTitle(found.defect.category, found.defect.description, 150),
           description: found.defect.description.replace(/\s+/g, " ").trim().slice(0, 400),
         }
       : null;
