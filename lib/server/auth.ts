@@ -8,6 +8,7 @@ import { clearHits, hit, retryAfterMs } from "@/db/rate-limit";
 import { users } from "@/db/schema";
 import { activeMemberships, findUserByEmail } from "@/db/users";
 import { env } from "@/lib/env";
+import type { SessionClaims } from "./session-cookie";
 import { SIGN_IN_LIMITS, clientKey } from "./sign-in-limits";
 
 /** Told to the sign-in form so it can say why, without hinting whether the e-mail exists. */
@@ -23,12 +24,7 @@ const credentialsSchema = z.object({
 // A real hash of a random password, so an unknown e-mail costs the same time as a wrong password.
 const DUMMY_HASH = bcrypt.hashSync("rigline-timing-equaliser", 10);
 
-export type SessionClaims = {
-  id: string;
-  orgId: string;
-  role: string;
-  sv: number;
-};
+export type { SessionClaims };
 
 // Lazy config: the environment is read when the first request arrives, not at build time.
 export const { handlers, auth, signIn, signOut } = NextAuth(() => ({

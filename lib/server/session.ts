@@ -1,13 +1,14 @@
 import "server-only";
 import { eq } from "drizzle-orm";
-import { headers } from "next/headers";
+import { cookies, headers } from "next/headers";
 import { cache } from "react";
 import { db } from "@/db/client";
 import { apiTokens } from "@/db/schema";
 import { findApiToken, loadStanding } from "@/db/users";
 import { defineAbilityFor, type Actor, type AppAbility } from "@/lib/permissions";
 import { sha256Hex } from "@/lib/security/tokens";
-import { auth, type SessionClaims } from "./auth";
+import { env } from "@/lib/env";
+import { sessionClaimsFrom } from "./session-cookie";
 
 export type SignedIn = Actor & {
   email: string;
@@ -53,9 +54,8 @@ export const currentUser = cache(async (): Promise<SignedIn | null> => {
   if (authorization?.toLowerCase().startsWith("bearer ")) {
     return userFromApiToken(authorization.slice(7).trim());
   }
-  const session = await auth();
-  const claims = session?.user as Partial<SessionClaims> | undefined;
-  if (!claims?.id || !claims.orgId) return null;
+  const claims = await sessionClaimsFrom(await cookies(), env().AUTH_SECRET);
+  if (!claims) return null;
   return standingToSignedIn(claims.id, claims.orgId, "session", claims.sv);
 });
 
