@@ -6,15 +6,13 @@ export async function register() {
   if (process.env.NEXT_RUNTIME !== "nodejs") return;
   const { env } = await import("./lib/env");
   const settings = env(); // throws with the bad variable named
+  const { db } = await import("./db/client");
   if (process.env.NEXT_PHASE !== "phase-production-build") {
-    const [{ db }, { startSnapshotScheduler }] = await Promise.all([import("./db/client"), import("./db/costs")]);
+    const { startSnapshotScheduler } = await import("./db/costs");
     startSnapshotScheduler(db); // once per process, guarded inside
   }
   if (settings.OUTBOX_SENDER === "on") {
-    const [{ db }, { startOutboxSender }] = await Promise.all([
-      import("./db/client"),
-      import("./lib/server/mail/sender"),
-    ]);
+    const { startOutboxSender } = await import("./lib/server/mail/sender");
     startOutboxSender(db, settings.OUTBOX_INTERVAL_MS);
   }
 }
