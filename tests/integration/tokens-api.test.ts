@@ -17,8 +17,7 @@ import { signedInAs } from "../helpers/users";
 
 // The real session module reads the request's Authorization header; no cookie session here.
 const requestHeaders: { current: Headers } = { current: new Headers() };
-vi.mock("next/headers", () => ({ headers: async () => requestHeaders.current }));
-vi.mock("@/lib/server/auth", () => ({ auth: async () => null }));
+vi.mock("next/headers", () => ({ headers: async () => requestHeaders.current, cookies: async () => ({ getAll: () => [] }) }));
 
 const database = await useTestDatabase();
 let finance: SignedIn;
