@@ -12,19 +12,21 @@ const ROWS_PER_STATEMENT = 5000;
  *
  * Values go through each column's own driver mapping (timestamps, JSON, booleans), and columns
  * with a JavaScript default (ids, created/updated times) get it per row, exactly as Drizzle's
- * insert would. A column row 0 leaves out is left to its SQL default for every row; a column with
- * an SQL default that row 0 gives but a later row leaves out is refused (it would silently become
- * null rather than the default); any other column left out is null.
+ * insert would. A column no row gives is left to its SQL default; a column with an SQL default
+ * that some rows give and others leave out is refused (those rows would silently get null rather
+ * than the default); any other column a row leaves out is null for that row.
  */
 export async function insertMany<T extends SQLiteTable>(db: DbOrTx, table: T, rows: readonly T["$inferInsert"][]): Promise<void> {
   if (rows.length === 0) return;
   const columns = Object.entries(getTableColumns(table)) as [string, SQLiteColumn][];
-  const given = new Set(Object.keys(rows[0]!).filter((key) => (rows[0] as Record<string, unknown>)[key] !== undefined));
+  // Every column any row gives (not only the first row's), so no row's value is dropped.
+  const given = new Set<string>();
+  for (const row of rows) for (const [key, value] of Object.entries(row)) if (value !== undefined) given.add(key);
   const used = columns.filter(([key, column]) => given.has(key) || column.defaultFn !== undefined);
   for (const [at, row] of rows.entries()) {
     for (const [key, column] of used) {
       if ((row as Record<string, unknown>)[key] === undefined && column.defaultFn === undefined && column.hasDefault) {
-        throw new Error(`insertMany into ${getTableName(table)}: row ${at} lacks ${key}, which row 0 gives`);
+        throw new Error(`insertMany into ${getTableName(table)}: row ${at} lacks ${key}, which another row gives`);
       }
     }
   }

@@ -74,6 +74,18 @@ describe("insertMany (one JSON parameter per statement)", () => {
     ).rejects.toThrow(/row 1 lacks state/);
   });
 
+  it("keeps a value that only a later row gives (the first row's columns are not the whole list)", async () => {
+    const [platform] = await database.insert(platforms).values({ orgId, make: "Testmake", model: "Later" }).returning();
+    await insertMany(database, vehicles, [
+      { orgId, fleetNumber: "L-1", platformId: platform!.id },
+      { orgId, fleetNumber: "L-2", platformId: platform!.id, notes: "only the second row has notes", odometerKm: 1234 },
+    ]);
+    const stored = await database.select().from(vehicles).where(eq(vehicles.platformId, platform!.id));
+    const byFleet = new Map(stored.map((v) => [v.fleetNumber, v]));
+    expect(byFleet.get("L-1")).toMatchObject({ notes: null, odometerKm: null, state: "in_service" });
+    expect(byFleet.get("L-2")).toMatchObject({ notes: "only the second row has notes", odometerKm: 1234, state: "in_service" });
+  });
+
   it("inserts all or nothing inside a transaction", async () => {
     const [platform] = await database.insert(platforms).values({ orgId, make: "Testmake", model: "Atomic" }).returning();
     await expect(
