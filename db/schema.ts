@@ -457,6 +457,15 @@ export const vehicleVarianceSummaries = sqliteTable(
   (t) => [index("vehicle_variance_summaries_org").on(t.orgId), index("vehicle_variance_summaries_edition").on(t.editionId)],
 );
 
+/**
+ * One row: a number raised by triggers (migration 0007) whenever anything the vehicle register
+ * shows changes, so a register page computed at one revision is known current while it holds.
+ */
+export const registerRevision = sqliteTable("register_revision", {
+  id: integer("id").primaryKey(),
+  revision: integer("revision").notNull().default(0),
+});
+
 /** What-if items: planned but not fitted, shown in the mass planner before anything is bought. */
 export const plannedItems = sqliteTable(
   "planned_items",

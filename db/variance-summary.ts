@@ -55,6 +55,8 @@ export type VehicleVarianceFigures = {
   costToCloseCents: number;
   /** Rounded to the gram. */
   massToCloseKg: number;
+  /** The first instant (ms) at which time alone could change these figures; null: none. */
+  validUntil: number | null;
 };
 
 export type FleetVarianceFigures = FleetVariance & {
@@ -72,14 +74,12 @@ export type SummaryReadOptions = {
   beforeWrite?: () => Promise<void>;
 };
 
-type Judged = Pick<VehicleVarianceFigures, "editionId" | "status" | "summary" | "costToCloseCents" | "massToCloseKg"> & {
-  validUntil: number | null;
-};
+type Judged = Pick<VehicleVarianceFigures, "editionId" | "status" | "summary" | "costToCloseCents" | "massToCloseKg" | "validUntil">;
 
 /**
  * One vehicle as the fleet read packs it: [id, fleet number, depot, platform, edition, current
  * (1 when its stored row holds at now, else 0), then the stored row's status, the seven counts,
- * cost in cents and mass in grams (null when not current)].
+ * cost in cents, mass in grams and valid until (absent when not current)].
  */
 type PackedRow = [
   string,
@@ -98,6 +98,7 @@ type PackedRow = [
   number,
   number,
   number,
+  number | null,
 ];
 
 /** The earliest instant after `nowMs` at which time alone changes this vehicle's judgement. */
@@ -203,13 +204,14 @@ async function figuresWhere(db: DbOrTx, actor: Actor, where: SQL, now: Date, opt
     and ${s.computedAt} <= ${nowMs} and (${s.validUntil} is null or ${s.validUntil} > ${nowMs}))`;
   const pack = await db.get<{ j: string | null }>(sql`
     select json_group_array(case when current then json_array(id, fleet_number, depot_id, platform_id, edition_id, 1, status, meets, short, off_spec,
-        unproven, concession, prohibited_fitted, extra, cost_to_close_cents, mass_to_close_g)
+        unproven, concession, prohibited_fitted, extra, cost_to_close_cents, mass_to_close_g, valid_until)
       else json_array(id, fleet_number, depot_id, platform_id, edition_id, 0) end) as j
     from (
       select ${vehicles.id} as id, ${vehicles.fleetNumber} as fleet_number, ${vehicles.depotId} as depot_id, ${vehicles.platformId} as platform_id,
         ${vehicles.editionId} as edition_id, coalesce(${current}, 0) as current, ${s.status} as status, ${s.meets} as meets, ${s.short} as short,
         ${s.offSpec} as off_spec, ${s.unproven} as unproven, ${s.concession} as concession, ${s.prohibitedFitted} as prohibited_fitted,
-        ${s.extra} as extra, ${s.costToCloseCents} as cost_to_close_cents, ${s.massToCloseG} as mass_to_close_g
+        ${s.extra} as extra, ${s.costToCloseCents} as cost_to_close_cents, ${s.massToCloseG} as mass_to_close_g,
+        ${s.validUntil} as valid_until
       from ${vehicles} left join ${s} on ${s.vehicleId} = ${vehicles.id}
       where ${where}
       order by ${vehicles.fleetNumber}
@@ -228,7 +230,7 @@ async function figuresWhere(db: DbOrTx, actor: Actor, where: SQL, now: Date, opt
   for (const r of rows) {
     const editionId = r[4];
     if (editionId === null) {
-      out.push({ vehicleId: r[0], fleetNumber: r[1], depotId: r[2], platformId: r[3], editionId: null, status: "no_edition", summary: null, costToCloseCents: 0, massToCloseKg: 0 });
+      out.push({ vehicleId: r[0], fleetNumber: r[1], depotId: r[2], platformId: r[3], editionId: null, status: "no_edition", summary: null, costToCloseCents: 0, massToCloseKg: 0, validUntil: null });
     } else if (r[5] === 1) {
       out.push({
         vehicleId: r[0],
@@ -240,13 +242,14 @@ async function figuresWhere(db: DbOrTx, actor: Actor, where: SQL, now: Date, opt
         summary: { meets: r[7], short: r[8], offSpec: r[9], unproven: r[10], concession: r[11], prohibitedFitted: r[12], extra: r[13] },
         costToCloseCents: r[14],
         massToCloseKg: r[15] / 1000,
+        validUntil: r[16],
       });
     } else {
       const fresh = judged?.get(r[0]);
       // Judged again but gone by then (deleted, or no longer visible): left out, as the full loader would.
       if (!fresh) continue;
-      const { editionId: judgedEdition, status, summary, costToCloseCents, massToCloseKg } = fresh;
-      out.push({ vehicleId: r[0], fleetNumber: r[1], depotId: r[2], platformId: r[3], editionId: judgedEdition, status, summary, costToCloseCents, massToCloseKg });
+      const { editionId: judgedEdition, status, summary, costToCloseCents, massToCloseKg, validUntil } = fresh;
+      out.push({ vehicleId: r[0], fleetNumber: r[1], depotId: r[2], platformId: r[3], editionId: judgedEdition, status, summary, costToCloseCents, massToCloseKg, validUntil });
     }
   }
   return out;
@@ -281,6 +284,9 @@ export async function varianceFiguresFor(
   return figuresWhere(db, actor, namedVehicles(actor, vehicleIds), now, options);
 }
 
+/** Each vehicle's status, and the first instant at which time alone could change any of them. */
+export type VarianceStatuses = { byVehicle: Map<string, VehicleVarianceStatus>; validUntil: number | null };
+
 /**
  * meets_standard / gaps / no_edition for each of the given vehicles the actor may see (ids it
  * may not see are simply absent), for filtering and badging a register page.
@@ -290,8 +296,12 @@ export async function varianceStatusByVehicle(
   actor: Actor,
   vehicleIds: readonly string[],
   now: Date,
-): Promise<Map<string, VehicleVarianceStatus>> {
-  const out = new Map<string, VehicleVarianceStatus>();
-  for (const f of await varianceFiguresFor(db, actor, vehicleIds, now)) out.set(f.vehicleId, f.status);
-  return out;
+): Promise<VarianceStatuses> {
+  const byVehicle = new Map<string, VehicleVarianceStatus>();
+  let validUntil: number | null = null;
+  for (const f of await varianceFiguresFor(db, actor, vehicleIds, now)) {
+    byVehicle.set(f.vehicleId, f.status);
+    if (f.validUntil !== null && (validUntil === null || f.validUntil < validUntil)) validUntil = f.validUntil;
+  }
+  return { byVehicle, validUntil };
 }

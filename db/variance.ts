@@ -363,4 +363,4 @@ export async function loadVariancesFor(
 }
 
 // The register's status filter reads the stored summaries (db/variance-summary.ts).
-export { varianceStatusByVehicle } from "./variance-summary";
+export { varianceStatusByVehicle, type VarianceStatuses } from "./variance-summary";

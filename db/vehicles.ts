@@ -5,7 +5,7 @@ import type { DbOrTx } from "./client";
 import { depots, editions, platforms, standards, users, vehicleDrivers, vehicles, type VehicleState } from "./schema";
 import { vehicleScope } from "./scope";
 import { readinessByVehicle } from "./readiness";
-import { varianceStatusByVehicle } from "./variance";
+import { varianceStatusByVehicle, type VarianceStatuses } from "./variance";
 
 export async function countVehiclesByState(db: DbOrTx, actor: Actor) {
   const rows = await db
@@ -216,14 +216,27 @@ type RegisterDbRow = Awaited<ReturnType<typeof registerBase>>[number];
 /**
  * One page of the register. Filters, search and sort run in SQL; the variance status comes
  * from db/variance in one batch for the page (or, when filtering by it, for every candidate),
- * never one query per vehicle.
+ * never one query per vehicle. The app reads it through db/register-cache.ts.
  */
 export async function listVehiclesPage(db: DbOrTx, actor: Actor, p: VehicleListParams, now: Date): Promise<RegisterPage> {
+  return (await computeRegisterPage(db, actor, p, now)).page;
+}
+
+/**
+ * The page, and the first instant at which time alone could change it (a variance status
+ * turning as a fitment or concession expires); null when only a change of data can.
+ */
+export async function computeRegisterPage(
+  db: DbOrTx,
+  actor: Actor,
+  p: VehicleListParams,
+  now: Date,
+): Promise<{ page: RegisterPage; validUntil: number | null }> {
   const where = registerWhere(actor, p);
   const order = registerOrder(p);
   let total: number;
   let pageRows: RegisterDbRow[];
-  let statuses: Map<string, VehicleVarianceStatus>;
+  let statuses: VarianceStatuses;
   let page = p.page;
 
   if (p.variance === "meets_standard" || p.variance === "gaps" || p.readiness) {
@@ -239,7 +252,7 @@ export async function listVehiclesPage(db: DbOrTx, actor: Actor, p: VehicleListP
     // Trip readiness (variance, defects, grounding, expiries) is judged for the candidates in one batch too.
     const readiness = p.readiness ? await readinessByVehicle(db, actor, candidateIds, now) : null;
     const matched = candidates
-      .filter((c) => (p.variance === "meets_standard" || p.variance === "gaps" ? statuses.get(c.id) === p.variance : true))
+      .filter((c) => (p.variance === "meets_standard" || p.variance === "gaps" ? statuses.byVehicle.get(c.id) === p.variance : true))
       .filter((c) => (readiness ? readiness.get(c.id)?.state === p.readiness : true))
       .map((c) => c.id);
     total = matched.length;
@@ -296,10 +309,10 @@ export async function listVehiclesPage(db: DbOrTx, actor: Actor, p: VehicleListP
       r.editionId && r.standardId
         ? { id: r.editionId, number: r.editionNumber ?? 0, status: r.editionStatus ?? "draft", standardId: r.standardId, standardName: r.standardName ?? "" }
         : null,
-    variance: r.editionId ? (statuses.get(r.id) ?? "gaps") : "no_edition",
+    variance: r.editionId ? (statuses.byVehicle.get(r.id) ?? "gaps") : "no_edition",
     drivers: driversOf.get(r.id) ?? [],
   }));
-  return { items, page, pageSize: p.pageSize, total, pageCount: Math.ceil(total / p.pageSize) };
+  return { page: { items, page, pageSize: p.pageSize, total, pageCount: Math.ceil(total / p.pageSize) }, validUntil: statuses.validUntil };
 }
 
 function clampPage(page: number, total: number, pageSize: number): number {

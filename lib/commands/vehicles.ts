@@ -4,10 +4,10 @@ import { z } from "zod";
 import { platformName } from "@/components/platforms/figures";
 import { db, type DbOrTx, type Tx } from "@/db/client";
 import { platformOptions } from "@/db/platforms";
+import { registerPage } from "@/db/register-cache";
 import { depots, editions, memberships, platforms, standards, users, vehicleDrivers, vehicles, VEHICLE_STATES, type VehicleState } from "@/db/schema";
 import {
   findVehicle,
-  listVehiclesPage,
   registerFilterOptions,
   READINESS_FILTERS,
   VARIANCE_FILTERS,
@@ -217,7 +217,7 @@ export const listVehicles = query({
   name: "vehicle.list",
   input: vehicleListSchema,
   permission: ["read", "Vehicle"],
-  run: async ({ user, input, now }) => listVehiclesPage(db(), user, input as VehicleListParams, now),
+  run: async ({ user, input, now }) => registerPage(db(), user, input as VehicleListParams, now),
 });
 
 /** What the register's filters and bulk actions offer to this user. */

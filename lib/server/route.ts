@@ -42,4 +42,19 @@ export function routeHandler<S extends z.ZodType, O>(
   };
 }
 
+const serialised = new WeakMap<object, Uint8Array>();
+
+/**
+ * JSON of an answer shared between requests (a kept, read-only result such as a cached register
+ * page), serialised and encoded once for as long as the answer itself is kept.
+ */
+export function sharedJson(result: object): Response {
+  let body = serialised.get(result);
+  if (body === undefined) {
+    body = new TextEncoder().encode(JSON.stringify(result));
+    serialised.set(result, body);
+  }
+  return new Response(body as BodyInit, { headers: { "content-type": "application/json" } });
+}
+
 export const queryParams = (request: Request) => Object.fromEntries(new URL(request.url).searchParams);

@@ -1,3 +1,4 @@
+import { LRUCache } from "lru-cache";
 import { decode } from "next-auth/jwt";
 
 /**
@@ -33,15 +34,31 @@ function cookieValue(jar: CookieJar, name: string): string | null {
   return parts.length ? parts.map((p) => p.value).join("") : null;
 }
 
+/**
+ * Tokens already opened, with their claims, until the token's own expiry: a browser sends the
+ * same cookie with every request, and opening it (key derivation, decryption) is the largest
+ * part of reading it. A token string only maps to the claims sealed in it, so this changes
+ * nothing of what is accepted; the database re-check still runs for every request.
+ */
+const opened = new LRUCache<string, { claims: SessionClaims; expiresAtMs: number }>({ max: 10_000 });
+
 export async function sessionClaimsFrom(jar: CookieJar, secret: string): Promise<SessionClaims | null> {
   for (const name of SESSION_COOKIE_NAMES) {
     const token = cookieValue(jar, name);
     if (!token) continue;
+    const key = `${secret}\u0000${name}\u0000${token}`;
+    const kept = opened.get(key);
+    if (kept) {
+      if (Date.now() < kept.expiresAtMs) return kept.claims;
+      opened.delete(key);
+    }
     try {
       // The salt is the cookie's name, as Auth.js encodes it: a token only opens under its own name.
       const payload = await decode({ token, secret, salt: name });
       if (!payload?.sub || typeof payload.orgId !== "string") return null;
-      return { id: payload.sub, orgId: payload.orgId, role: String(payload.role), sv: Number(payload.sv) };
+      const claims: SessionClaims = { id: payload.sub, orgId: payload.orgId, role: String(payload.role), sv: Number(payload.sv) };
+      if (typeof payload.exp === "number") opened.set(key, { claims, expiresAtMs: payload.exp * 1000 });
+      return claims;
     } catch {
       // Tampered, expired or encrypted with another secret: not signed in.
       return null;

@@ -1,6 +1,7 @@
 import type { Client } from "@libsql/client";
 import { eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it, vi } from "vitest";
+import { clearRegisterPages } from "@/db/register-cache";
 import { editionLines, editions, fitments, standards, vehicles } from "@/db/schema";
 import { listVehicles } from "@/lib/commands/vehicles";
 import { execute } from "@/lib/server/operation";
@@ -35,8 +36,9 @@ beforeAll(async () => {
   );
 });
 
-/** Statements sent to the database while `run` runs. */
+/** Statements sent to the database while `run` runs, computing every page afresh. */
 async function statementsDuring(run: () => Promise<unknown>): Promise<number> {
+  clearRegisterPages(database);
   const client = (database as unknown as { $client: Client }).$client;
   const spy = vi.spyOn(client, "execute");
   try {

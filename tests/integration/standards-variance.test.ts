@@ -101,7 +101,7 @@ describe("GET /api/vehicles/{id}/variance on the demo fleet", () => {
     expect(body.summary).toEqual({ meets: 55, short: 0, offSpec: 0, unproven: 0, concession: 1, prohibitedFitted: 0, extra: 0 });
     expect(line(body, "WD-01").concession?.reason).toMatch(/back order/);
     const status = await varianceStatusByVehicle(database, manager, [await idOf("MH-010")], new Date());
-    expect([...status.values()]).toEqual(["meets_standard"]);
+    expect([...status.byVehicle.values()]).toEqual(["meets_standard"]);
   });
 
   it("an expired concession counts as short (MH-013)", async () => {

@@ -1,4 +1,4 @@
-import { and, eq, inArray, ne, sql } from "drizzle-orm";
+import { and, eq, inArray, isNotNull, ne, sql } from "drizzle-orm";
 import { beforeAll, describe, expect, it, vi } from "vitest";
 import { concessions, depots, editionLines, editions, evidence, fitments, jobs, lineDependencies, vehicles, vehicleVarianceSummaries } from "@/db/schema";
 import { loadFleetVariance, type VarianceFilter } from "@/db/variance";
@@ -30,9 +30,20 @@ async function expectSameAsFull(now = new Date(), filter?: VarianceFilter): Prom
   const stats: SummaryReadStats = { stored: 0, judged: 0, written: 0 };
   const figures = await loadFleetVarianceFigures(database, manager, filter, now, { stats });
   const full = await loadFleetVariance(database, manager, filter, now);
-  const { details, ...fleet } = figures;
+  const { details: withValidity, ...fleet } = figures;
   const { details: fullDetails, ...fullFleet } = full;
   expect(fleet).toEqual(fullFleet);
+  // Each figure holds until its stored row's valid_until (the row written back by this read).
+  const stored = await database
+    .select({ vehicleId: vehicleVarianceSummaries.vehicleId, validUntil: vehicleVarianceSummaries.validUntil })
+    .from(vehicleVarianceSummaries)
+    .where(isNotNull(vehicleVarianceSummaries.status));
+  const storedUntil = new Map(stored.map((r) => [r.vehicleId, r.validUntil?.getTime() ?? null]));
+  for (const f of withValidity) {
+    if (f.editionId === null) expect(f.validUntil).toBeNull();
+    else if (storedUntil.has(f.vehicleId)) expect(f.validUntil).toBe(storedUntil.get(f.vehicleId));
+  }
+  const details = withValidity.map(({ validUntil: _validUntil, ...rest }) => rest);
   expect(details).toEqual(
     fullDetails.map((d) => ({
       vehicleId: d.vehicleId,
@@ -303,7 +314,7 @@ describe("variance summaries equal the full judgement", () => {
     const ids = all.map((v) => v.id);
     const status = await varianceStatusByVehicle(database, manager, ids, new Date());
     const full = await loadFleetVariance(database, manager, { includeRetired: true }, new Date());
-    expect(Object.fromEntries(status)).toEqual(Object.fromEntries(full.details.map((d) => [d.vehicleId, varianceStatus(d.variance)])));
+    expect(Object.fromEntries(status.byVehicle)).toEqual(Object.fromEntries(full.details.map((d) => [d.vehicleId, varianceStatus(d.variance)])));
   });
 });
 
