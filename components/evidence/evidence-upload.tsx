@@ -3,6 +3,7 @@
 import { useRouter } from "next/navigation";
 import { useRef, useState, type FormEvent } from "react";
 import { Button, Field, FormMessage, Input, Select } from "@/components/ui";
+import { acceptAttribute, type EvidenceUploadKind } from "@/lib/uploads/checks";
 
 type Criterion = { attribute: string; label?: string; unit?: string; op: string; value: unknown };
 type Line = { lineKey: string; description: string; criteria: Criterion[]; evidenceNeeded: string[] };
@@ -24,7 +25,7 @@ export function EvidenceUpload({ jobId, lines }: { jobId: string; lines: Line[] 
   const router = useRouter();
   const formRef = useRef<HTMLFormElement>(null);
   const [lineKey, setLineKey] = useState(lines[0]?.lineKey ?? "");
-  const [kind, setKind] = useState<string>("photo");
+  const [kind, setKind] = useState<EvidenceUploadKind>("photo");
   const [progress, setProgress] = useState<number | null>(null);
   const [message, setMessage] = useState<{ tone: "success" | "error"; text: string } | null>(null);
   const [fieldErrors, setFieldErrors] = useState<Record<string, string>>({});
@@ -82,7 +83,7 @@ export function EvidenceUpload({ jobId, lines }: { jobId: string; lines: Line[] 
           </Select>
         </Field>
         <Field label="Kind of evidence" id="evidence-kind" error={fieldErrors.kind} hint={line?.evidenceNeeded.length ? `This line needs: ${line.evidenceNeeded.map((k) => k.replace("_", " ")).join(", ")}` : undefined}>
-          <Select size="lg" name="kind" value={kind} onChange={(e) => setKind(e.target.value)}>
+          <Select size="lg" name="kind" value={kind} onChange={(e) => setKind(e.target.value as EvidenceUploadKind)}>
             {KINDS.map((k) => (
               <option key={k.value} value={k.value}>
                 {k.label}
@@ -122,8 +123,8 @@ export function EvidenceUpload({ jobId, lines }: { jobId: string; lines: Line[] 
           </Field>
         </fieldset>
       )}
-      <Field label="File" hint="A photo (JPEG, PNG, WebP) or a PDF, up to 10 MiB. Photos are stored without their location data." id="evidence-file" error={fieldErrors.file} required>
-        <Input size="lg" type="file" name="file" accept="image/jpeg,image/png,image/webp,application/pdf" />
+      <Field label="File" hint={`${kind === "photo" ? "A photo (JPEG, PNG or WebP)" : "A photo (JPEG, PNG or WebP) or a PDF"}, up to 10 MiB. Photos are stored without their location data.`} id="evidence-file" error={fieldErrors.file} required>
+        <Input size="lg" type="file" name="file" accept={acceptAttribute(kind)} />
       </Field>
       {progress !== null && (
         <div className="flex items-center gap-3">

@@ -8,6 +8,7 @@ import { useFormAction } from "@/components/forms/use-form-action";
 import { Caution, EmptyState, Field, Input, Quantity, StatusPill, Table, TBody, Td, Th, THead, Tr } from "@/components/ui";
 import type { Reconciliation } from "@/lib/commands/mass";
 import type { FormState } from "@/lib/server/form-state";
+import { acceptAttribute } from "@/lib/uploads/checks";
 import { WEIGHBRIDGE_CAUTION } from "./cautions";
 
 type TicketFile = { filename: string; contentType: string; sizeBytes: number; href: string };
@@ -57,8 +58,8 @@ function TicketForm({ vehicleId }: { vehicleId: string }) {
         <Input name="grossKg" inputMode="decimal" defaultValue={valueOf("grossKg")} />
       </Field>
       <div className="col-span-2 md:col-span-5">
-        <Field label="Ticket file (optional)" hint="A PDF, or a JPEG or PNG photo of the ticket, up to 10 MB. Location data is removed from photos." error={errorOf("file")}>
-          <Input type="file" name="file" accept="application/pdf,image/jpeg,image/png,.pdf,.jpg,.jpeg,.png" />
+        <Field label="Ticket file (optional)" hint="A PDF, or a photo of the ticket (JPEG, PNG or WebP), up to 10 MiB. Location data is removed from photos." error={errorOf("file")}>
+          <Input type="file" name="file" accept={acceptAttribute("weighbridge_ticket")} />
         </Field>
       </div>
       <div className="col-span-2 md:col-span-5">

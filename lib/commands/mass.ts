@@ -1,6 +1,5 @@
 import "server-only";
 import { and, eq, or, sql } from "drizzle-orm";
-import { fileTypeFromBuffer } from "file-type";
 import { z } from "zod";
 import { db, type DbOrTx } from "@/db/client";
 import { editionShortLines, listPlannedItems, listTickets, loadElectricalPlan, loadMassContext, plannableEditions, ticketFileRow, toPlannedItem } from "@/db/mass";
@@ -27,7 +26,7 @@ import { springAdvice } from "@/lib/suspension";
 import { AppError, notFound } from "@/lib/server/errors";
 import { command, query } from "@/lib/server/operation";
 import { sha256OfBytes, storage } from "@/lib/server/storage";
-import { checkUploadSize, displayFileName, EVIDENCE_MAX_BYTES, evidenceStorageKey, EXTENSIONS, TYPE_WORDS, type AcceptedType } from "@/lib/uploads";
+import { acceptedTypesInWords, displayFileName, EVIDENCE_MAX_BYTES, evidenceStorageKey, EXTENSIONS, type AcceptedType } from "@/lib/uploads";
 import { prepareUpload } from "./evidence";
 
 /**
@@ -314,46 +313,17 @@ const ticketKg = (what: string) =>
     .positive({ error: `Enter the ${what} mass from the ticket in kg` })
     .max(20_000, { error: `The ${what} mass looks wrong: more than 20,000 kg` });
 
-/** The ticket's file may be a PDF or a photo of the paper (JPEG or PNG); the bytes decide, not the name. */
-export const TICKET_FILE_TYPES = ["application/pdf", "image/jpeg", "image/png"] as const satisfies readonly AcceptedType[];
+/** The ticket's file may be a PDF or a photo of the paper, as any evidence of its kind (ACCEPTED_TYPES); the bytes decide, not the name. */
 export const TICKET_FILE_MAX_BYTES = EVIDENCE_MAX_BYTES;
 
 /** An empty file input (no file chosen) arrives as a nameless zero-byte file: that is no file. */
 const ticketFileField = z.preprocess(
   (v) => (v === "" || v === null || (v instanceof Blob && v.size === 0 && !(v as File).name) ? undefined : v),
   z
-    .custom<Blob>((v) => v instanceof Blob, { error: "Attach the ticket as a file (PDF, JPEG or PNG)" })
-    .meta({ description: "The ticket as a PDF, JPEG or PNG of at most 10 MiB (optional)", override: { type: "string", format: "binary" } })
+    .custom<Blob>((v) => v instanceof Blob, { error: `Attach the ticket as a file (${acceptedTypesInWords("weighbridge_ticket")})` })
+    .meta({ description: `The ticket as ${acceptedTypesInWords("weighbridge_ticket")} of at most 10 MiB (optional)`, override: { type: "string", format: "binary" } })
     .optional(),
 );
-
-const fileRefusal = (message: string) => new AppError("validation_failed", message, [{ field: "file", message }]);
-
-/**
- * Checks and cleans a ticket file with the evidence upload checks: size first (413), then the
- * type read from its bytes (a PDF, JPEG or PNG, else 422 naming `file`); photos are re-encoded,
- * which drops EXIF (location included).
- */
-export async function prepareTicketFile(file: Blob): Promise<{ bytes: Buffer; type: AcceptedType }> {
-  const tooBig = checkUploadSize(file.size, TICKET_FILE_MAX_BYTES);
-  if (tooBig) {
-    if (tooBig.status === 413) throw new AppError("payload_too_large", tooBig.message, [{ field: "file", message: tooBig.message }]);
-    throw fileRefusal(tooBig.message);
-  }
-  const head = await fileTypeFromBuffer(new Uint8Array(await file.slice(0, 4100).arrayBuffer()));
-  const names = TICKET_FILE_TYPES.map((t) => TYPE_WORDS[t]);
-  const words = `${names.slice(0, -1).join(", ")} or ${names[names.length - 1]}`;
-  if (!head || !(TICKET_FILE_TYPES as readonly string[]).includes(head.mime)) {
-    throw fileRefusal(`The ticket file must be a ${words}; this file's content is ${head ? head.mime : "not one of those"}, whatever its name says`);
-  }
-  try {
-    return await prepareUpload(file, "weighbridge_ticket");
-  } catch (error) {
-    // The evidence checks answer 415 for content they cannot use; on this form it is a field error.
-    if (error instanceof AppError && error.code === "unsupported_media_type") throw fileRefusal(error.message);
-    throw error;
-  }
-}
 
 export const ticketInputSchema = z.object({
   id: vehicleId,
@@ -451,7 +421,9 @@ export const recordWeighbridgeTicket = command({
     // its row is written (a failed transaction leaves at worst an unreferenced file), SHA-256 kept.
     let file: { id: string; filename: string; contentType: AcceptedType; sizeBytes: number; sha256: string } | null = null;
     if (input.file) {
-      const prepared = await prepareTicketFile(input.file);
+      // The evidence upload checks, as for any evidence: 413 too large, 415 naming `file` for
+      // content of another type, photos re-encoded without EXIF (location included).
+      const prepared = await prepareUpload(input.file, "weighbridge_ticket");
       const evidenceId = crypto.randomUUID();
       const extension = EXTENSIONS[prepared.type];
       const storageKey = evidenceStorageKey(user.orgId, evidenceId, extension);

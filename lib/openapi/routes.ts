@@ -176,7 +176,7 @@ export const API_ROUTES: ApiRoute[] = [
     path: "/api/vehicles/{id}/weighbridge",
     summary: "Record a weighbridge ticket, with its file (multipart)",
     description:
-      "multipart/form-data (or JSON without a file). `file` is optional: a PDF, JPEG or PNG of at most 10 MiB, checked by its content (another type answers 422 naming `file`, a larger file 413); photos are re-encoded without EXIF or location data and the stored file's SHA-256 is kept. The file is fetched only through GET /api/vehicles/{id}/weighbridge/{ticketId}/file.",
+      "multipart/form-data (or JSON without a file). `file` is optional: a PDF, JPEG, PNG or WebP of at most 10 MiB, checked by its content as any evidence file (another type answers 415 naming `file`, a larger file 413); photos are re-encoded without EXIF or location data and the stored file's SHA-256 is kept. The file is fetched only through GET /api/vehicles/{id}/weighbridge/{ticketId}/file.",
     tag: "Mass",
     op: recordWeighbridgeTicket,
     in: "multipart",

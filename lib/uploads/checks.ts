@@ -57,18 +57,31 @@ export function checkUploadSize(sizeBytes: number, maxBytes = EVIDENCE_MAX_BYTES
 /** Whether the type found in the file's bytes (undefined: not recognised) is accepted for this kind. */
 export function checkUploadType(detectedType: string | undefined, kind: EvidenceUploadKind): UploadAccepted | UploadRefusal {
   const accepted = ACCEPTED_TYPES[kind];
-  const words = accepted.map((t) => TYPE_WORDS[t]).join(", ");
+  const words = acceptedTypesInWords(kind);
   if (!detectedType || !(accepted as readonly string[]).includes(detectedType)) {
     return {
       ok: false,
       status: 415,
       code: "unsupported_type",
       message: detectedType
-        ? `This file's content is ${detectedType}, which is not accepted here; send a ${words}`
-        : `This file's content is not a recognised ${words}, whatever its name says`,
+        ? `This file's content is ${detectedType}, which is not accepted here; send ${words}`
+        : `This file's content is not ${words}, whatever its name says`,
     };
   }
   return { ok: true, type: detectedType as AcceptedType, isImage: isImageType(detectedType) };
+}
+
+/** The file input's `accept` list for a kind: its types and their usual file-name endings. */
+export function acceptAttribute(kind: EvidenceUploadKind): string {
+  const types = ACCEPTED_TYPES[kind];
+  const endings = types.flatMap((t) => (t === "image/jpeg" ? [".jpg", ".jpeg"] : [`.${EXTENSIONS[t]}`]));
+  return [...types, ...endings].join(",");
+}
+
+/** The accepted types of a kind in words: "a PDF, JPEG photo, PNG image or WebP image". */
+export function acceptedTypesInWords(kind: EvidenceUploadKind): string {
+  const words = ACCEPTED_TYPES[kind].map((t) => TYPE_WORDS[t]);
+  return words.length === 1 ? `a ${words[0]}` : `a ${words.slice(0, -1).join(", ")} or ${words[words.length - 1]}`;
 }
 
 export function formatBytes(bytes: number): string {

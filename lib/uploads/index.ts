@@ -1,5 +1,7 @@
 export {
   ACCEPTED_TYPES,
+  acceptAttribute,
+  acceptedTypesInWords,
   DOCUMENT_TYPES,
   EVIDENCE_MAX_BYTES,
   EXTENSIONS,

@@ -105,15 +105,22 @@ describe("a weighbridge ticket with its file", () => {
     expect((json as Recorded).ticket).toMatchObject({ evidenceId: null, file: null });
   });
 
-  it("refuses a file of another type with 422 naming file, whatever its name, and records nothing", async () => {
-    const before = await database.select().from(weighbridgeTickets).where(eq(weighbridgeTickets.vehicleId, vehicle.id));
+  it("takes a WebP photo of the ticket as any evidence photo, stored as JPEG", async () => {
     const webp = await sharp({ create: { width: 8, height: 8, channels: 3, background: "#808080" } }).webp().toBuffer();
+    const { status, json } = await post(ticketForm({ bytes: webp, name: "ticket.webp", type: "image/webp" }));
+    expect(status).toBe(201);
+    expect((json as Recorded).ticket.file).toMatchObject({ contentType: "image/jpeg" });
+  });
+
+  it("refuses content of another type with 415 naming file, as evidence uploads do, whatever its name, and records nothing", async () => {
+    const before = await database.select().from(weighbridgeTickets).where(eq(weighbridgeTickets.vehicleId, vehicle.id));
+    const gif = Buffer.from("R0lGODlhAQABAIAAAAAAAP///yH5BAEAAAAALAAAAAABAAEAAAIBRAA7", "base64");
     for (const file of [
       { bytes: Buffer.from("ticket 4471, front 1420 kg"), name: "ticket.pdf", type: "application/pdf" },
-      { bytes: webp, name: "ticket.png", type: "image/png" },
+      { bytes: gif, name: "ticket.png", type: "image/png" },
     ]) {
       const { status, json } = await post(ticketForm(file));
-      expect(status, file.name).toBe(422);
+      expect(status, file.name).toBe(415);
       expect((json as ErrorJson).error.details.map((d) => d.field)).toContain("file");
     }
     expect(await database.select().from(weighbridgeTickets).where(eq(weighbridgeTickets.vehicleId, vehicle.id))).toHaveLength(before.length);

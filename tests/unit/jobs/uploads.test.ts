@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { checkUploadSize, checkUploadType, displayFileName, downloadName, EVIDENCE_MAX_BYTES, evidenceStorageKey } from "@/lib/uploads";
+import { acceptAttribute, acceptedTypesInWords, checkUploadSize, checkUploadType, displayFileName, downloadName, EVIDENCE_MAX_BYTES, evidenceStorageKey } from "@/lib/uploads";
 
 describe("upload size", () => {
   it("refuses a file over the limit with 413 and an empty one with 422", () => {
@@ -41,5 +41,14 @@ describe("file names", () => {
     expect(evidenceStorageKey("0f1e2d3c-aaaa", "1234-abcd", "jpg")).toBe("evidence/0f1e2d3c-aaaa/1234-abcd.jpg");
     expect(() => evidenceStorageKey("org", "../../x", "jpg")).toThrow(RangeError);
     expect(() => evidenceStorageKey("org", "id", "j/pg")).toThrow(RangeError);
+  });
+});
+
+describe("what each kind of upload accepts, as the file inputs and messages say it", () => {
+  it("photos take images only; tickets, certificates and sign-offs a PDF too", () => {
+    expect(acceptedTypesInWords("photo")).toBe("a JPEG photo, PNG image or WebP image");
+    expect(acceptedTypesInWords("weighbridge_ticket")).toBe("a PDF, JPEG photo, PNG image or WebP image");
+    expect(acceptAttribute("photo")).toBe("image/jpeg,image/png,image/webp,.jpg,.jpeg,.png,.webp");
+    expect(acceptAttribute("weighbridge_ticket")).toBe("application/pdf,image/jpeg,image/png,image/webp,.pdf,.jpg,.jpeg,.png,.webp");
   });
 });

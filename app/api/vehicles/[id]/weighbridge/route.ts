@@ -11,7 +11,7 @@ export const GET = routeHandler(listWeighbridgeQuery, (_request, params) => ({ i
 
 /**
  * Record a ticket: multipart/form-data with `weighedAt`, `ticketNumber`, `frontKg`, `rearKg`,
- * `grossKg`, optional `jobId` and optional `file` (PDF, JPEG or PNG); a JSON body without a
+ * `grossKg`, optional `jobId` and optional `file` (PDF, JPEG, PNG or WebP); a JSON body without a
  * file is accepted too.
  */
 export const POST = routeHandler(
