@@ -6,6 +6,7 @@
  * it, as is the full per-line judgement the single-vehicle and readiness views still use.
  */
 import { sql } from "drizzle-orm";
+import { fleetReadinessCounts, loadFleetReadiness } from "@/db/readiness";
 import { loadFleetVariance } from "@/db/variance";
 import { loadFleetVarianceFigures, type SummaryReadStats } from "@/db/variance-summary";
 import { contractorFirms, depots, editionLines, editions, fitments, organisations, platforms, standards, vehicles, vehicleVarianceSummaries } from "@/db/schema";
@@ -96,6 +97,24 @@ export async function run(): Promise<BenchResult[]> {
     if (JSON.stringify(fullFleet) !== JSON.stringify(warmFigures)) throw new Error("the warm figures differ from the full judgement");
 
     const fullMs = await medianMs(() => loadFleetVariance(database, actor, undefined, now), 3);
+
+    // Readiness counts (home page, daily snapshot): in brief from the summaries, against the
+    // full per-line judgement of every vehicle they replaced; the same counts either way.
+    const countsFull = async () => {
+      const counts = { ready: 0, limited: 0, notReady: 0, total: 0 };
+      for (const r of await loadFleetReadiness(database, actor, now)) {
+        counts.total++;
+        if (r.state === "ready") counts.ready++;
+        else if (r.state === "limited") counts.limited++;
+        else counts.notReady++;
+      }
+      return counts;
+    };
+    if (JSON.stringify(await fleetReadinessCounts(database, actor, now)) !== JSON.stringify(await countsFull())) {
+      throw new Error("the readiness counts in brief differ from the full judgement");
+    }
+    const readinessBrief = await medianMs(() => fleetReadinessCounts(database, actor, now));
+    const readinessFull = await medianMs(countsFull, 3);
     const name = `Fleet variance, ${VEHICLES.toLocaleString("en-AU")} vehicles × ${LINES} lines`;
     const scan = `${baseline.toFixed(0)} ms for one SQL scan of the fitments`;
     return [
@@ -123,6 +142,15 @@ export async function run(): Promise<BenchResult[]> {
         baseline: scan,
         ratio: fullMs / baseline,
         ratioLabel: "× the fitments scan",
+        target: "none of its own (for comparison)",
+        met: null,
+      },
+      {
+        name: `Fleet readiness counts (home page, daily snapshot), ${VEHICLES.toLocaleString("en-AU")} vehicles, summaries current`,
+        figure: `${readinessBrief.toFixed(0)} ms in brief (lib/readiness/brief.ts)`,
+        baseline: `${readinessFull.toFixed(0)} ms for the full per-line judgement of every vehicle`,
+        ratio: readinessBrief / readinessFull,
+        ratioLabel: "× the full judgement",
         target: "none of its own (for comparison)",
         met: null,
       },

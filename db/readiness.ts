@@ -1,12 +1,21 @@
 import { and, eq, inArray, sql, type SQL } from "drizzle-orm";
 import type { Actor } from "@/lib/permissions";
 import { defectTitle } from "@/lib/defects";
-import { tripReadiness, type ExpiringItem, type OpenDefect, type ReadinessState, type TripReadiness } from "@/lib/readiness";
-import type { EditionLine, Fitment } from "@/lib/variance";
+import {
+  earliestExpiry,
+  expiringItemsOf,
+  readinessStateOf,
+  tripReadiness,
+  type ExpiringItem,
+  type OpenDefect,
+  type ReadinessState,
+  type TripReadiness,
+} from "@/lib/readiness";
 import type { DbOrTx } from "./client";
 import { defects, vehicles } from "./schema";
-import { vehicleScope } from "./scope";
-import { loadFleetVariance, loadVehicleVariance, type LoadedVehicleVariance, type VarianceFilter } from "./variance";
+import { namedVehicles, vehicleScope } from "./scope";
+import { loadFleetVariance, loadVariancesFor, loadVehicleVariance, type LoadedVehicleVariance, type VarianceFilter } from "./variance";
+import { loadFleetVarianceFigures, varianceFiguresFor, type VehicleVarianceFigures } from "./variance-summary";
 
 /**
  * Trip readiness read from the database: each vehicle's variance (db/variance.ts), its open
@@ -27,38 +36,6 @@ export type VehicleReadiness = TripReadiness & {
 export type ReadinessCounts = { ready: number; limited: number; notReady: number; total: number };
 
 const OPEN_STATES = ["reported", "triaged", "in_repair"] as const;
-
-/** A date plus whole calendar months (31 Jan + 1 month → 28/29 Feb: the month's last day). */
-export function addMonths(date: Date, months: number): Date {
-  const d = new Date(date.getTime());
-  const day = d.getUTCDate();
-  d.setUTCDate(1);
-  d.setUTCMonth(d.getUTCMonth() + months);
-  const lastDay = new Date(Date.UTC(d.getUTCFullYear(), d.getUTCMonth() + 1, 0)).getUTCDate();
-  d.setUTCDate(Math.min(day, lastDay));
-  return d;
-}
-
-/** What expires on a vehicle: fitments (own date, else line expiry in months) and registration. */
-export function expiringItemsOf(
-  lines: readonly EditionLine[],
-  fitments: readonly Fitment[],
-  registration: { registration: string | null; registrationExpiry: Date | null },
-): ExpiringItem[] {
-  const lineById = new Map(lines.map((l) => [l.id, l]));
-  const items: ExpiringItem[] = [];
-  for (const f of fitments) {
-    const line = f.lineId ? lineById.get(f.lineId) : undefined;
-    let expiresAt = f.expiresAt;
-    if (!expiresAt && line?.expiryMonths && line.expiryMonths > 0) expiresAt = addMonths(f.fittedAt, line.expiryMonths);
-    if (!expiresAt) continue;
-    items.push({ label: line ? `${line.title} (${line.code})` : f.label, expiresAt });
-  }
-  if (registration.registrationExpiry) {
-    items.push({ label: `Registration${registration.registration ? ` ${registration.registration}` : ""}`, expiresAt: registration.registrationExpiry });
-  }
-  return items.sort((a, b) => a.expiresAt.getTime() - b.expiresAt.getTime());
-}
 
 type VehicleFacts = {
   id: string;
@@ -117,24 +94,92 @@ export async function loadFleetReadiness(db: DbOrTx, actor: Actor, now: Date = n
   return out;
 }
 
-/** Readiness of a set of vehicles by id (ids the actor may not see are absent), in one pass. */
+/** Readiness of a set of vehicles by id (ids the actor may not see are absent), judged for those vehicles only. */
 export async function readinessByVehicle(db: DbOrTx, actor: Actor, vehicleIds: readonly string[], now: Date = new Date()): Promise<Map<string, VehicleReadiness>> {
-  const wanted = new Set(vehicleIds);
   const out = new Map<string, VehicleReadiness>();
-  if (wanted.size === 0) return out;
-  for (const r of await loadFleetReadiness(db, actor, now, { includeRetired: true })) {
-    if (wanted.has(r.vehicleId)) out.set(r.vehicleId, r);
+  if (vehicleIds.length === 0) return out;
+  const [loaded, { factsById, defectsByVehicle }] = await Promise.all([loadVariancesFor(db, actor, vehicleIds, now), factsAndDefects(db, namedVehicles(actor, vehicleIds))]);
+  for (const l of loaded) {
+    const facts = factsById.get(l.vehicleId);
+    if (facts) out.set(l.vehicleId, judge(l, facts, defectsByVehicle.get(l.vehicleId) ?? [], now));
   }
   return out;
 }
 
+// ─── Readiness in brief: the state only, for counts and filters over the whole fleet ───
+
+type BriefRow = [id: string, state: VehicleFacts["state"], registrationExpiry: number | null, stopDefects: number, beforeTripDefects: number];
+
+/**
+ * The state (ready / limited / not ready) of each vehicle given its variance figures, judged in
+ * brief (lib/readiness/brief.ts): the figures' counts and readiness facts from the variance
+ * summaries, the vehicle's state and registration, its open defects counted by severity. The
+ * same state the full judgement gives, without loading every line and fitment. Vehicles with no
+ * edition have no summary: their fitments' expiries are read with the full loader (they carry
+ * no edition lines, so that is cheap).
+ */
+async function briefStates(db: DbOrTx, actor: Actor, figures: readonly VehicleVarianceFigures[], now: Date): Promise<Map<string, ReadinessState>> {
+  const out = new Map<string, ReadinessState>();
+  if (figures.length === 0) return out;
+  const ids = figures.map((f) => f.vehicleId);
+  const withoutEdition = figures.filter((f) => f.readinessFacts === null).map((f) => f.vehicleId);
+  const open = sql.join(OPEN_STATES.map((s) => sql`${s}`), sql`, `);
+  const [pack, unsummarised] = await Promise.all([
+    db.get<{ j: string | null }>(sql`
+      select json_group_array(json_array(v.id, v.state, v.registration_expiry, coalesce(d.stop, 0), coalesce(d.before_trip, 0))) as j
+      from (select ${vehicles.id} as id, ${vehicles.state} as state, ${vehicles.registrationExpiry} as registration_expiry
+            from ${vehicles} where ${namedVehicles(actor, ids)}) as v
+      left join (
+        select ${defects.vehicleId} as vehicle_id,
+          sum(${defects.severity} = 'stop') as stop, sum(${defects.severity} = 'before_next_trip') as before_trip
+        from ${defects}
+        where ${defects.orgId} = ${actor.orgId} and ${defects.state} in (${open})
+        group by ${defects.vehicleId}
+      ) as d on d.vehicle_id = v.id`),
+    loadVariancesFor(db, actor, withoutEdition, now),
+  ]);
+  const rows = new Map((pack?.j ? (JSON.parse(pack.j) as BriefRow[]) : []).map((r) => [r[0], r]));
+  const fitmentExpiry = new Map<string, number | null>(
+    unsummarised.map((l) => [l.vehicleId, earliestExpiry(expiringItemsOf(l.lines, l.fitments, { registration: null, registrationExpiry: null }))?.getTime() ?? null]),
+  );
+  for (const f of figures) {
+    const row = rows.get(f.vehicleId);
+    if (!row) continue;
+    const [, vehicleState, registrationExpiry, stopDefects, beforeTripDefects] = row;
+    const fitted = f.readinessFacts ? f.readinessFacts.earliestExpiryMs : (fitmentExpiry.get(f.vehicleId) ?? null);
+    const earliest = [fitted, registrationExpiry].filter((t): t is number => t !== null);
+    const s = f.summary;
+    out.set(
+      f.vehicleId,
+      readinessStateOf(
+        {
+          vehicleState,
+          stopDefects,
+          beforeTripDefects,
+          criticalGaps: f.readinessFacts?.criticalGaps ?? 0,
+          limitingLines: s ? s.short + s.offSpec + s.unproven + s.prohibitedFitted : 0,
+          earliestExpiry: earliest.length ? new Date(Math.min(...earliest)) : null,
+        },
+        now,
+      ),
+    );
+  }
+  return out;
+}
+
+/** The readiness state of each of the given vehicles the actor may see (ids it may not see are absent). */
+export async function readinessStatesFor(db: DbOrTx, actor: Actor, vehicleIds: readonly string[], now: Date = new Date()): Promise<Map<string, ReadinessState>> {
+  return briefStates(db, actor, await varianceFiguresFor(db, actor, vehicleIds, now), now);
+}
+
 /**
  * How many of the actor's vehicles are ready, limited or not ready (retired vehicles are not
- * counted: they are out of the fleet). For the manager's home page.
+ * counted: they are out of the fleet). For the manager's home page and the daily snapshot.
  */
 export async function fleetReadinessCounts(db: DbOrTx, actor: Actor, now: Date = new Date()): Promise<ReadinessCounts> {
   const counts: Record<ReadinessState, number> = { ready: 0, limited: 0, not_ready: 0 };
-  const fleet = await loadFleetReadiness(db, actor, now);
-  for (const r of fleet) counts[r.state] += 1;
-  return { ready: counts.ready, limited: counts.limited, notReady: counts.not_ready, total: fleet.length };
+  const { details } = await loadFleetVarianceFigures(db, actor, {}, now);
+  const states = await briefStates(db, actor, details, now);
+  for (const state of states.values()) counts[state] += 1;
+  return { ready: counts.ready, limited: counts.limited, notReady: counts.not_ready, total: states.size };
 }

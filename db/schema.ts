@@ -446,6 +446,10 @@ export const vehicleVarianceSummaries = sqliteTable(
     costToCloseCents: integer("cost_to_close_cents").notNull().default(0),
     /** Mass to close, in whole grams (the fleet figures are reported to the gram). */
     massToCloseG: integer("mass_to_close_g").notNull().default(0),
+    /** Short or off-spec lines in the critical categories (trip readiness in brief, lib/readiness/brief.ts). */
+    criticalGaps: integer("critical_gaps").notNull().default(0),
+    /** The earliest expiry among the vehicle's fitments (own date, else its line's expiry in months). */
+    earliestExpiryAt: integer("earliest_expiry_at", { mode: "timestamp_ms" }),
     /** The instant the figures were judged at. */
     computedAt: integer("computed_at", { mode: "timestamp_ms" }).notNull(),
     validUntil: integer("valid_until", { mode: "timestamp_ms" }),

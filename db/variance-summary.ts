@@ -1,5 +1,6 @@
 import { sql, type SQL } from "drizzle-orm";
 import type { Actor } from "@/lib/permissions";
+import { criticalGapCount, earliestExpiry, expiringItemsOf } from "@/lib/readiness";
 import {
   rollUpFleet,
   vehicleFigures,
@@ -37,10 +38,11 @@ import { filterWhere, loadVariancesFor, type LoadedVehicleVariance, type Varianc
 /**
  * The version of the rules the stored figures were judged by. Rows of another version are never
  * read as current, so raise this whenever a change to lib/variance or to the mapping in
- * db/variance.ts could change any vehicle's status, counts, cost or mass: every row is then
+ * db/variance.ts could change any vehicle's status, counts, cost or mass, or to the readiness
+ * facts kept beside them (lib/readiness: critical categories, expiries): every row is then
  * judged again on its next read.
  */
-export const SUMMARY_RULES_VERSION = 1;
+export const SUMMARY_RULES_VERSION = 2;
 
 /** One vehicle's variance figures, as the fleet view and the export show them. */
 export type VehicleVarianceFigures = {
@@ -57,6 +59,12 @@ export type VehicleVarianceFigures = {
   massToCloseKg: number;
   /** The first instant (ms) at which time alone could change these figures; null: none. */
   validUntil: number | null;
+  /**
+   * What trip readiness in brief needs besides the counts (lib/readiness/brief.ts): critical
+   * gaps and the earliest fitment expiry (ms). Null when the vehicle has no edition (its
+   * fitments' expiries are then not summarised).
+   */
+  readinessFacts: { criticalGaps: number; earliestExpiryMs: number | null } | null;
 };
 
 export type FleetVarianceFigures = FleetVariance & {
@@ -74,12 +82,12 @@ export type SummaryReadOptions = {
   beforeWrite?: () => Promise<void>;
 };
 
-type Judged = Pick<VehicleVarianceFigures, "editionId" | "status" | "summary" | "costToCloseCents" | "massToCloseKg" | "validUntil">;
+type Judged = Pick<VehicleVarianceFigures, "editionId" | "status" | "summary" | "costToCloseCents" | "massToCloseKg" | "validUntil" | "readinessFacts">;
 
 /**
  * One vehicle as the fleet read packs it: [id, fleet number, depot, platform, edition, current
  * (1 when its stored row holds at now, else 0), then the stored row's status, the seven counts,
- * cost in cents, mass in grams and valid until (absent when not current)].
+ * cost in cents, mass in grams, valid until, critical gaps and earliest expiry (absent when not current)].
  */
 type PackedRow = [
   string,
@@ -97,6 +105,8 @@ type PackedRow = [
   number,
   number,
   number,
+  number,
+  number | null,
   number,
   number | null,
 ];
@@ -121,9 +131,17 @@ export function nextChangeAfter(loaded: Pick<LoadedVehicleVariance, "fitments" |
   return next === Infinity ? null : next;
 }
 
+const NO_REGISTRATION = { registration: null, registrationExpiry: null };
+
 function judgedOf(loaded: LoadedVehicleVariance, nowMs: number): Judged {
   const figures = vehicleFigures(loaded.variance);
-  return { editionId: loaded.editionId, ...figures, validUntil: loaded.editionId ? nextChangeAfter(loaded, nowMs) : null };
+  const readinessFacts = loaded.editionId
+    ? {
+        criticalGaps: criticalGapCount(loaded.variance),
+        earliestExpiryMs: earliestExpiry(expiringItemsOf(loaded.lines, loaded.fitments, NO_REGISTRATION))?.getTime() ?? null,
+      }
+    : null;
+  return { editionId: loaded.editionId, ...figures, validUntil: loaded.editionId ? nextChangeAfter(loaded, nowMs) : null, readinessFacts };
 }
 
 /**
@@ -159,7 +177,8 @@ async function judgeAndStore(db: DbOrTx, actor: Actor, ids: readonly string[], n
       .filter(([, j]) => j.editionId !== null && j.summary !== null && j.status !== "no_edition")
       .map(([id, j]) => {
         const s = j.summary!;
-        return [id, j.editionId, j.status, s.meets, s.short, s.offSpec, s.unproven, s.concession, s.prohibitedFitted, s.extra, j.costToCloseCents, Math.round(j.massToCloseKg * 1000), j.validUntil];
+        return [id, j.editionId, j.status, s.meets, s.short, s.offSpec, s.unproven, s.concession, s.prohibitedFitted, s.extra, j.costToCloseCents, Math.round(j.massToCloseKg * 1000), j.validUntil,
+          j.readinessFacts?.criticalGaps ?? 0, j.readinessFacts?.earliestExpiryMs ?? null];
       });
     try {
       // Only rows still carrying this claim: a change since the claim deleted its row.
@@ -167,13 +186,15 @@ async function judgeAndStore(db: DbOrTx, actor: Actor, ids: readonly string[], n
         update ${vehicleVarianceSummaries} set
           status = j.status, meets = j.meets, short = j.short, off_spec = j.off_spec, unproven = j.unproven,
           concession = j.concession, prohibited_fitted = j.prohibited_fitted, extra = j.extra,
-          cost_to_close_cents = j.cost, mass_to_close_g = j.mass_g, valid_until = j.valid_until, claim = null
+          cost_to_close_cents = j.cost, mass_to_close_g = j.mass_g, valid_until = j.valid_until, critical_gaps = j.critical_gaps,
+          earliest_expiry_at = j.earliest_expiry_at, claim = null
         from (
           select json_extract(value, '$[0]') as vehicle_id, json_extract(value, '$[1]') as edition_id,
             json_extract(value, '$[2]') as status, json_extract(value, '$[3]') as meets, json_extract(value, '$[4]') as short,
             json_extract(value, '$[5]') as off_spec, json_extract(value, '$[6]') as unproven, json_extract(value, '$[7]') as concession,
             json_extract(value, '$[8]') as prohibited_fitted, json_extract(value, '$[9]') as extra, json_extract(value, '$[10]') as cost,
-            json_extract(value, '$[11]') as mass_g, json_extract(value, '$[12]') as valid_until
+            json_extract(value, '$[11]') as mass_g, json_extract(value, '$[12]') as valid_until,
+            json_extract(value, '$[13]') as critical_gaps, json_extract(value, '$[14]') as earliest_expiry_at
           from json_each(${JSON.stringify(rows)})
         ) as j
         where vehicle_variance_summaries.vehicle_id = j.vehicle_id
@@ -204,14 +225,14 @@ async function figuresWhere(db: DbOrTx, actor: Actor, where: SQL, now: Date, opt
     and ${s.computedAt} <= ${nowMs} and (${s.validUntil} is null or ${s.validUntil} > ${nowMs}))`;
   const pack = await db.get<{ j: string | null }>(sql`
     select json_group_array(case when current then json_array(id, fleet_number, depot_id, platform_id, edition_id, 1, status, meets, short, off_spec,
-        unproven, concession, prohibited_fitted, extra, cost_to_close_cents, mass_to_close_g, valid_until)
+        unproven, concession, prohibited_fitted, extra, cost_to_close_cents, mass_to_close_g, valid_until, critical_gaps, earliest_expiry_at)
       else json_array(id, fleet_number, depot_id, platform_id, edition_id, 0) end) as j
     from (
       select ${vehicles.id} as id, ${vehicles.fleetNumber} as fleet_number, ${vehicles.depotId} as depot_id, ${vehicles.platformId} as platform_id,
         ${vehicles.editionId} as edition_id, coalesce(${current}, 0) as current, ${s.status} as status, ${s.meets} as meets, ${s.short} as short,
         ${s.offSpec} as off_spec, ${s.unproven} as unproven, ${s.concession} as concession, ${s.prohibitedFitted} as prohibited_fitted,
         ${s.extra} as extra, ${s.costToCloseCents} as cost_to_close_cents, ${s.massToCloseG} as mass_to_close_g,
-        ${s.validUntil} as valid_until
+        ${s.validUntil} as valid_until, ${s.criticalGaps} as critical_gaps, ${s.earliestExpiryAt} as earliest_expiry_at
       from ${vehicles} left join ${s} on ${s.vehicleId} = ${vehicles.id}
       where ${where}
       order by ${vehicles.fleetNumber}
@@ -230,7 +251,7 @@ async function figuresWhere(db: DbOrTx, actor: Actor, where: SQL, now: Date, opt
   for (const r of rows) {
     const editionId = r[4];
     if (editionId === null) {
-      out.push({ vehicleId: r[0], fleetNumber: r[1], depotId: r[2], platformId: r[3], editionId: null, status: "no_edition", summary: null, costToCloseCents: 0, massToCloseKg: 0, validUntil: null });
+      out.push({ vehicleId: r[0], fleetNumber: r[1], depotId: r[2], platformId: r[3], editionId: null, status: "no_edition", summary: null, costToCloseCents: 0, massToCloseKg: 0, validUntil: null, readinessFacts: null });
     } else if (r[5] === 1) {
       out.push({
         vehicleId: r[0],
@@ -243,13 +264,14 @@ async function figuresWhere(db: DbOrTx, actor: Actor, where: SQL, now: Date, opt
         costToCloseCents: r[14],
         massToCloseKg: r[15] / 1000,
         validUntil: r[16],
+        readinessFacts: { criticalGaps: r[17], earliestExpiryMs: r[18] },
       });
     } else {
       const fresh = judged?.get(r[0]);
       // Judged again but gone by then (deleted, or no longer visible): left out, as the full loader would.
       if (!fresh) continue;
-      const { editionId: judgedEdition, status, summary, costToCloseCents, massToCloseKg, validUntil } = fresh;
-      out.push({ vehicleId: r[0], fleetNumber: r[1], depotId: r[2], platformId: r[3], editionId: judgedEdition, status, summary, costToCloseCents, massToCloseKg, validUntil });
+      const { editionId: judgedEdition, status, summary, costToCloseCents, massToCloseKg, validUntil, readinessFacts } = fresh;
+      out.push({ vehicleId: r[0], fleetNumber: r[1], depotId: r[2], platformId: r[3], editionId: judgedEdition, status, summary, costToCloseCents, massToCloseKg, validUntil, readinessFacts });
     }
   }
   return out;

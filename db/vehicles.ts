@@ -4,7 +4,7 @@ import type { VehicleVarianceStatus } from "@/lib/variance";
 import type { DbOrTx } from "./client";
 import { depots, editions, platforms, standards, users, vehicleDrivers, vehicles, type VehicleState } from "./schema";
 import { vehicleScope } from "./scope";
-import { readinessByVehicle } from "./readiness";
+import { readinessStatesFor } from "./readiness";
 import { varianceStatusByVehicle, type VarianceStatuses } from "./variance";
 
 export async function countVehiclesByState(db: DbOrTx, actor: Actor) {
@@ -250,10 +250,10 @@ export async function computeRegisterPage(
     const candidateIds = candidates.map((c) => c.id);
     statuses = await varianceStatusByVehicle(db, actor, candidateIds, now);
     // Trip readiness (variance, defects, grounding, expiries) is judged for the candidates in one batch too.
-    const readiness = p.readiness ? await readinessByVehicle(db, actor, candidateIds, now) : null;
+    const readiness = p.readiness ? await readinessStatesFor(db, actor, candidateIds, now) : null;
     const matched = candidates
       .filter((c) => (p.variance === "meets_standard" || p.variance === "gaps" ? statuses.byVehicle.get(c.id) === p.variance : true))
-      .filter((c) => (readiness ? readiness.get(c.id)?.state === p.readiness : true))
+      .filter((c) => (readiness ? readiness.get(c.id) === p.readiness : true))
       .map((c) => c.id);
     total = matched.length;
     page = clampPage(page, total, p.pageSize);

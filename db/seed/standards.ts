@@ -10,6 +10,7 @@
 import { createHash } from "node:crypto";
 import { and, asc, eq } from "drizzle-orm";
 import { validateDependencies } from "@/lib/editions";
+import { addMonths } from "@/lib/readiness";
 import type { CriterionRow } from "../schema";
 import {
   concessions,
@@ -234,11 +235,6 @@ export function vehicleProfile(i: number): VehicleProfile | null {
 }
 
 const DAY_MS = 86_400_000;
-const addMonths = (date: Date, months: number) => {
-  const d = new Date(date.getTime());
-  d.setUTCMonth(d.getUTCMonth() + months);
-  return d;
-};
 
 type Ctx = { orgId: string; slug: string; managerId: string; contractorId: string | null; now: Date };
 

@@ -5,6 +5,7 @@ import { db, type DbOrTx } from "@/db/client";
 import { findFitment, listVehicleConcessions, listVehicleFitments } from "@/db/fitments";
 import { concessions, editionLines, fitments, vehicles, ZONES } from "@/db/schema";
 import { vehicleScope } from "@/db/scope";
+import { addMonths } from "@/lib/readiness";
 import { AppError, conflict, notFound } from "@/lib/server/errors";
 import { command, query } from "@/lib/server/operation";
 import type { SignedIn } from "@/lib/server/session";
@@ -114,12 +115,6 @@ async function editionLineByKey(tx: DbOrTx, editionId: string | null, key: strin
     .limit(1);
   return line ?? null;
 }
-
-const addMonths = (date: Date, months: number) => {
-  const d = new Date(date.getTime());
-  d.setUTCMonth(d.getUTCMonth() + months);
-  return d;
-};
 
 export const listFitments = query({
   name: "fitment.list",

@@ -7,6 +7,8 @@ export {
   LIMITED_ROADS,
   VEHICLE_STATES,
 } from "./readiness";
+export { addMonths, expiringItemsOf } from "./expiry";
+export { criticalGapCount, earliestExpiry, readinessFactsOf, readinessStateOf, type ReadinessFacts } from "./brief";
 export type {
   DefectSeverity,
   ExpiringItem,

@@ -8,6 +8,7 @@ import { getFleetVariance } from "@/lib/commands/variance";
 import { confirmRollout, publishEdition, startDraft, updateLine } from "@/lib/commands/standards";
 import { execute } from "@/lib/server/operation";
 import type { SignedIn } from "@/lib/server/session";
+import { criticalGapCount, earliestExpiry, expiringItemsOf } from "@/lib/readiness";
 import { varianceStatus, vehicleFigures } from "@/lib/variance";
 import { useTestDatabase } from "../helpers/db";
 import { signedInAs } from "../helpers/users";
@@ -43,7 +44,20 @@ async function expectSameAsFull(now = new Date(), filter?: VarianceFilter): Prom
     if (f.editionId === null) expect(f.validUntil).toBeNull();
     else if (storedUntil.has(f.vehicleId)) expect(f.validUntil).toBe(storedUntil.get(f.vehicleId));
   }
-  const details = withValidity.map(({ validUntil: _validUntil, ...rest }) => rest);
+  // The readiness facts kept beside the figures are the full judgement's (lib/readiness).
+  const fullById = new Map(fullDetails.map((d) => [d.vehicleId, d]));
+  for (const f of withValidity) {
+    const d = fullById.get(f.vehicleId)!;
+    expect(f.readinessFacts).toEqual(
+      d.editionId === null
+        ? null
+        : {
+            criticalGaps: criticalGapCount(d.variance),
+            earliestExpiryMs: earliestExpiry(expiringItemsOf(d.lines, d.fitments, { registration: null, registrationExpiry: null }))?.getTime() ?? null,
+          },
+    );
+  }
+  const details = withValidity.map(({ validUntil: _validUntil, readinessFacts: _readinessFacts, ...rest }) => rest);
   expect(details).toEqual(
     fullDetails.map((d) => ({
       vehicleId: d.vehicleId,
