@@ -75,7 +75,7 @@ export async function run(): Promise<BenchResult[]> {
       .innerJoin(organisations, eq(organisations.id, memberships.orgId))
       .where(eq(users.email, "manager@mirrabel-health.example"));
     const actor: Actor = { userId: row!.user.id, orgId: row!.org.id, role: "manager", firmId: null, depotId: null };
-    const user: SignedIn = { ...actor, email: row!.user.email, name: row!.user.name, orgName: row!.org.name, via: "session", ability: defineAbilityFor(actor) };
+    const user: SignedIn = { ...actor, email: row!.user.email, name: row!.user.name, orgName: row!.org.name, timeZone: row!.org.timeZone, via: "session", ability: defineAbilityFor(actor) };
     const platform = await database.query.platforms.findFirst({ where: and(eq(platforms.orgId, actor.orgId)) });
     const results: BenchResult[] = [];
 

@@ -67,6 +67,8 @@ export const organisations = sqliteTable("organisations", {
   gstMethod: text("gst_method", { enum: GST_METHODS })
     .notNull()
     .default("per-line"),
+  /** IANA time zone the organisation's instants are shown in (lib/format/dates.ts). */
+  timeZone: text("time_zone").notNull().default("Australia/Adelaide"),
   createdAt: createdAt(),
 });
 

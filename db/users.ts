@@ -32,6 +32,7 @@ export async function loadStanding(db: DbOrTx, userId: string, orgId: string) {
       sessionVersion: users.sessionVersion,
       orgId: memberships.orgId,
       orgName: organisations.name,
+      orgTimeZone: organisations.timeZone,
       role: memberships.role,
       active: memberships.active,
       firmId: memberships.firmId,

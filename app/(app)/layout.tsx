@@ -1,5 +1,6 @@
 import type { ReactNode } from "react";
 import { AppHeader } from "@/components/shell/app-header";
+import { TimeZoneProvider } from "@/components/providers/time-zone";
 import { navFor } from "@/components/shell/navigation";
 import { isProduction } from "@/lib/env";
 import { requireUser } from "@/lib/server/guard";
@@ -13,7 +14,7 @@ export default async function AppLayout({ children }: { children: ReactNode }) {
       </a>
       <AppHeader items={navFor(user.ability, user.role, isProduction())} name={user.name} role={user.role} orgName={user.orgName} />
       <main id="main" className="mx-auto w-full max-w-7xl flex-1 px-4 py-6">
-        {children}
+        <TimeZoneProvider timeZone={user.timeZone}>{children}</TimeZoneProvider>
       </main>
     </div>
   );

@@ -11,6 +11,7 @@ import { fleetReadinessCounts, loadFleetReadiness, readinessByVehicle } from "@/
 import { countVehiclesByState, listVehicleSummaries } from "@/db/vehicles";
 import { requireUser } from "@/lib/server/guard";
 import type { SignedIn } from "@/lib/server/session";
+import { formatCalendarDay } from "@/lib/format/dates";
 
 export const metadata: Metadata = { title: "Home" };
 
@@ -157,7 +158,7 @@ async function ContractorHome({ user }: { user: SignedIn }) {
                     Job {j.number} · {j.fleetNumber}
                   </Link>
                   <span className="text-muted">{j.awardedFirmId === user.firmId ? "Work to finish" : "Quote to send"}</span>
-                  <span className="font-semibold tabular-nums">{j.due ? `due ${j.due.toLocaleDateString("en-AU")}` : "no due date"}</span>
+                  <span className="font-semibold tabular-nums">{j.due ? `due ${formatCalendarDay(j.due)}` : "no due date"}</span>
                 </li>
               ))}
             </ul>

@@ -15,9 +15,10 @@ export type SettingsValues = {
   springStiffMarginKg: number;
   weighbridgeToleranceKg: number;
   gstMethod: "per-line" | "invoice-total";
+  timeZone: string;
 };
 
-export function SettingsForm({ settings, readOnly }: { settings: SettingsValues; readOnly: boolean }) {
+export function SettingsForm({ settings, readOnly, timeZones }: { settings: SettingsValues; readOnly: boolean; timeZones: readonly string[] }) {
   const { state, formAction, errorOf, valueOf } = useFormAction(updateSettingsAction);
   const num = (field: keyof SettingsValues) => valueOf(field, String(settings[field]));
   return (
@@ -51,6 +52,15 @@ export function SettingsForm({ settings, readOnly }: { settings: SettingsValues;
           <Select name="gstMethod" defaultValue={valueOf("gstMethod", settings.gstMethod)}>
             <option value="per-line">Round each line, then add up</option>
             <option value="invoice-total">Add up unrounded, round the total</option>
+          </Select>
+        </Field>
+        <Field label="Time zone" hint="Dates and times of reports, decisions and saves read in this zone; due dates and expiry dates are calendar days." error={errorOf("timeZone")} required>
+          <Select name="timeZone" defaultValue={valueOf("timeZone", settings.timeZone)}>
+            {timeZones.map((zone) => (
+              <option key={zone} value={zone}>
+                {zone.replace(/_/g, " ")}
+              </option>
+            ))}
           </Select>
         </Field>
       </fieldset>

@@ -3,7 +3,7 @@ import { dollarsOf } from "@/components/charts/format";
 import { Table, TBody, Td, Th, THead, Tr } from "@/components/ui";
 import type { LedgerListEntry } from "@/db/costs";
 import { CATEGORY_LABELS, KIND_LABELS, SOURCE_LABELS } from "@/lib/exports";
-import { dayText } from "./periods";
+import { formatCalendarDay } from "@/lib/format/dates";
 
 /** Ledger entries, newest first; amounts right-aligned in tabular figures. */
 export function LedgerTable({ entries, showVehicle = true, label = "Cost ledger" }: { entries: LedgerListEntry[]; showVehicle?: boolean; label?: string }) {
@@ -29,7 +29,7 @@ export function LedgerTable({ entries, showVehicle = true, label = "Cost ledger"
       <TBody>
         {entries.map((e) => (
           <Tr key={e.id} data-testid="ledger-row">
-            <Td className="whitespace-nowrap">{dayText(e.incurredOn)}</Td>
+            <Td className="whitespace-nowrap">{formatCalendarDay(e.incurredOn)}</Td>
             {showVehicle && (
               <Td className="whitespace-nowrap">
                 {e.vehicleId && e.fleetNumber ? (

@@ -43,7 +43,3 @@ export function monthsBetween(first: string, last: string): string[] {
   return out;
 }
 
-/** "1 Jul 2025" from a Date at UTC midnight. */
-export function dayText(date: Date): string {
-  return date.toLocaleDateString("en-AU", { day: "numeric", month: "short", year: "numeric", timeZone: "UTC" });
-}

@@ -3,7 +3,7 @@ import { EmptyState, TBody, Table, Td, Th, THead, Tr } from "@/components/ui";
 import type { DefectListRow } from "@/db/defects";
 import { categoryLabel } from "@/lib/defects";
 import { DefectStatePill, SeverityPill } from "./defect-pills";
-import { formatWhen } from "./defect-time";
+import { Instant } from "@/components/providers/time-zone";
 
 /** Defects for people at desks: most urgent first, each row opening the report. */
 export function DefectTable({ rows, empty, showVehicle = true, compactEmpty = false }: { rows: DefectListRow[]; empty: string; showVehicle?: boolean; compactEmpty?: boolean }) {
@@ -42,7 +42,7 @@ export function DefectTable({ rows, empty, showVehicle = true, compactEmpty = fa
               <span className="block truncate text-muted">{r.description}</span>
             </Td>
             <Td className="whitespace-nowrap">
-              {formatWhen(r.createdAt)}
+              <Instant at={r.createdAt} />
               <span className="block text-muted">{r.reporterName ?? "—"}</span>
             </Td>
             <Td>

@@ -1,8 +1,8 @@
 import { DefectStatePill, SeverityPill } from "@/components/defects/defect-pills";
-import { formatWhen } from "@/components/defects/defect-time";
 import { EmptyState } from "@/components/ui";
 import type { DefectListRow } from "@/db/defects";
 import { STATE_HINTS, defectTitle } from "@/lib/defects";
+import { Instant } from "@/components/providers/time-zone";
 
 /** What the driver reported and where each report stands. */
 export function MyReports({ reports, showVehicle = true }: { reports: DefectListRow[]; showVehicle?: boolean }) {
@@ -19,7 +19,7 @@ export function MyReports({ reports, showVehicle = true }: { reports: DefectList
             </span>
             <span className="text-base font-semibold">{defectTitle(r.category, r.description, 80)}</span>
             <span className="text-sm text-muted">
-              {formatWhen(r.createdAt)} · {STATE_HINTS[r.state]}
+              <Instant at={r.createdAt} /> · {STATE_HINTS[r.state]}
               {r.jobNumber !== null ? ` Job ${r.jobNumber}.` : ""}
             </span>
           </a>

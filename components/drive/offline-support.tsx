@@ -29,6 +29,7 @@ export function OfflineSupport({ userId, warmUrls }: { userId: string; warmUrls:
     const onMessage = (event: MessageEvent) => {
       const data = event.data as { type?: string } | null;
       if (data?.type === "warmed" && !cancelled) {
+        // The phone's own clock: when this phone last kept the pages for offline use, in the driver's time.
         const at = new Date().toLocaleTimeString("en-AU", { hour: "2-digit", minute: "2-digit", hour12: false });
         localStorage.setItem(`rigline-offline-saved:${userId}`, at);
         setSavedAt(at);

@@ -3,7 +3,8 @@ import { buttonClasses } from "@/components/ui";
 import { VehicleStatePill } from "@/components/vehicles/vehicle-state";
 import type { VehicleState } from "@/db/schema";
 import type { TripReadiness } from "@/lib/readiness";
-import { formatWhen } from "@/components/defects/defect-time";
+import { Instant } from "@/components/providers/time-zone";
+import { faultCount } from "./fault-count";
 
 export type DriveVehicle = {
   id: string;
@@ -31,7 +32,13 @@ export function DriveVehicleCard({ vehicle, readiness, lastCheck }: { vehicle: D
         </span>
       </a>
       {readiness && <p className="text-base font-semibold">{readiness.headline}</p>}
-      <p className="text-sm text-muted">{lastCheck ? `Your last check: ${formatWhen(lastCheck.completedAt)} · ${lastCheck.faults === 0 ? "no faults" : lastCheck.faults === 1 ? "1 fault" : `${lastCheck.faults} faults`}` : "You have not checked it yet"}</p>
+      <p className="text-sm text-muted">{lastCheck ? (
+          <>
+            Your last check: <Instant at={lastCheck.completedAt} /> · {faultCount(lastCheck.faults)}
+          </>
+        ) : (
+          "You have not checked it yet"
+        )}</p>
       <div className="grid grid-cols-2 gap-2">
         <a href={`/drive/${vehicle.id}/check`} className={buttonClasses({ size: "lg" })}>
           Pre-trip check

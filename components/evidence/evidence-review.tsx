@@ -1,7 +1,8 @@
 import { reviewEvidenceAction } from "@/app/(app)/jobs/actions";
 import { ActionForm } from "@/components/jobs/action-form";
-import { EvidenceStatePill, formatDate } from "@/components/jobs/status";
+import { EvidenceStatePill } from "@/components/jobs/status";
 import { formatBytes } from "@/lib/uploads";
+import { Instant } from "@/components/providers/time-zone";
 
 type Item = {
   id: string;
@@ -39,7 +40,7 @@ export function EvidenceReview({ jobId, items, canReview }: { jobId: string; ite
                   {KIND_WORDS[e.kind] ?? e.kind} · {e.line}
                 </p>
                 <p className="text-sm text-muted">
-                  {e.filename} · {formatBytes(e.sizeBytes)} · {e.uploadedBy} · {formatDate(e.createdAt)}
+                  {e.filename} · {formatBytes(e.sizeBytes)} · {e.uploadedBy} · <Instant at={e.createdAt} show="day" />
                 </p>
                 <p className="font-mono text-xs text-muted" title="SHA-256 of the stored file">
                   SHA-256 {e.sha256.slice(0, 16)}…

@@ -1,7 +1,8 @@
-import { EVIDENCE_LABELS, ZONE_LABELS, dateText } from "@/components/standards/labels";
+import { EVIDENCE_LABELS, ZONE_LABELS } from "@/components/standards/labels";
 import { EmptyState, Quantity, StatusPill, Table, TBody, Td, Th, THead, Tr } from "@/components/ui";
 import type { FitmentListItem } from "@/db/fitments";
 import { RemoveFitmentButton } from "./remove-fitment-button";
+import { Instant } from "@/components/providers/time-zone";
 
 const EVIDENCE_TONES = { accepted: "ok", lodged: "info", rejected: "danger" } as const;
 const EVIDENCE_WORDS = { accepted: "accepted", lodged: "waiting for review", rejected: "rejected" } as const;
@@ -59,15 +60,15 @@ export function FitmentsTable({ items, codeOfKey, attributeLabels, canManage, no
                   </div>
                 ))}
               </Td>
-              <Td className="whitespace-nowrap">{dateText(f.fittedAt)}</Td>
+              <Td className="whitespace-nowrap"><Instant at={f.fittedAt} show="day" /></Td>
               <Td className="whitespace-nowrap">
                 {f.expiresAt ? (
                   expired ? (
                     <StatusPill tone="danger" size="sm">
-                      Expired {dateText(f.expiresAt)}
+                      Expired <Instant at={f.expiresAt} show="day" />
                     </StatusPill>
                   ) : (
-                    dateText(f.expiresAt)
+                    <Instant at={f.expiresAt} show="day" />
                   )
                 ) : (
                   <span className="text-muted">—</span>

@@ -1,4 +1,5 @@
 import { EmptyState, StatusPill, Table, TBody, Td, Th, THead, Tr } from "@/components/ui";
+import { Instant } from "@/components/providers/time-zone";
 
 export type ImportHistoryItem = {
   id: string;
@@ -16,7 +17,6 @@ export type ImportHistoryItem = {
   createdByName: string | null;
 };
 
-const when = new Intl.DateTimeFormat("en-AU", { dateStyle: "medium", timeStyle: "short" });
 const n = (value: number) => value.toLocaleString("en-AU");
 const size = (bytes: number) => (bytes < 1024 ? `${n(bytes)} B` : bytes < 1024 * 1024 ? `${n(Math.round(bytes / 1024))} KB` : `${(bytes / (1024 * 1024)).toFixed(1)} MB`);
 
@@ -43,7 +43,7 @@ export function ImportHistory({ items }: { items: ImportHistoryItem[] }) {
       <TBody>
         {items.map((item) => (
           <Tr key={item.id}>
-            <Td className="whitespace-nowrap">{when.format(item.createdAt)}</Td>
+            <Td className="whitespace-nowrap"><Instant at={item.createdAt} /></Td>
             <Td>{item.createdByName ?? "—"}</Td>
             <Td>
               {item.hasFile ? (

@@ -1,7 +1,8 @@
 import Link from "next/link";
 import { EmptyState, Table, TBody, Td, Th, THead, Tr } from "@/components/ui";
 import type { JobState } from "@/lib/jobs";
-import { formatDate, JobStatePill } from "./status";
+import { JobStatePill } from "./status";
+import { formatCalendarDay } from "@/lib/format/dates";
 
 export type JobRow = {
   id: string;
@@ -48,7 +49,7 @@ export function JobsTable({ jobs, showVehicle = true, emptyText }: { jobs: JobRo
             </Td>
             <Td>{j.awardedFirmName ?? (j.offers.length ? `Asked: ${j.offers.map((o) => o.firmName).join(", ")}` : <span className="text-muted">Not offered</span>)}</Td>
             <Td className={j.overdue ? "font-semibold text-danger" : undefined}>
-              {formatDate(j.dueAt)}
+              {formatCalendarDay(j.dueAt)}
               {j.overdue && " (overdue)"}
             </Td>
           </Tr>

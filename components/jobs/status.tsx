@@ -68,7 +68,5 @@ export function LineStatusPill({ status }: { status: string }) {
   );
 }
 
-export const formatDate = (d: Date | string | null | undefined) =>
-  d ? new Date(d).toLocaleDateString("en-AU", { day: "numeric", month: "short", year: "numeric", timeZone: "UTC" }) : "—";
 
 export const dateInputValue = (d: Date | string | null | undefined) => (d ? new Date(d).toISOString().slice(0, 10) : "");

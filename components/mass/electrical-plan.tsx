@@ -21,6 +21,8 @@ import {
 import { InputError } from "@/lib/errors";
 import type { FormState } from "@/lib/server/form-state";
 import { ELECTRICAL_CAUTION } from "./cautions";
+import { useTimeZone } from "@/components/providers/time-zone";
+import { formatDayTime } from "@/lib/format/dates";
 
 type ConsumerRow = { label: string; currentA: string; hoursPerDay: string };
 type SourceRow = { kind: ChargeSourceKind; amount: string; unit: "A" | "W"; hoursPerDay: string };
@@ -90,13 +92,13 @@ function planJson(t: PlanText): string {
   });
 }
 
-function savedWords(version: number, updatedAt: string, by: string | null): string {
-  const when = new Date(updatedAt).toLocaleString("en-AU", { day: "numeric", month: "short", year: "numeric", hour: "numeric", minute: "2-digit" });
-  return `Saved ${when}${by ? ` by ${by}` : ""} (version ${version}).`;
+function savedWords(version: number, updatedAt: string, by: string | null, timeZone: string): string {
+  return `Saved ${formatDayTime(updatedAt, timeZone)}${by ? ` by ${by}` : ""} (version ${version}).`;
 }
 
 /** 12 V plan: daily budget, battery for the days of autonomy, recharge time and the cable of each run. */
 export function ElectricalPlan({ vehicleId, saved, canSave }: { vehicleId: string; saved: SavedElectricalPlan | null; canSave: boolean }) {
+  const timeZone = useTimeZone();
   const [initial] = useState(() => planText(saved));
   const [consumers, setConsumers] = useState(initial.consumers);
   const [sources, setSources] = useState(initial.sources);
@@ -106,7 +108,7 @@ export function ElectricalPlan({ vehicleId, saved, canSave }: { vehicleId: strin
   const [systemV, setSystemV] = useState(initial.systemV);
   const current = planJson({ systemV, days, chemistry, consumers, sources, runs });
   const [savedJson, setSavedJson] = useState<string | null>(() => (saved ? planJson(initial) : null));
-  const [savedNote, setSavedNote] = useState<string | null>(() => (saved ? savedWords(saved.version, saved.updatedAt, saved.updatedBy) : null));
+  const [savedNote, setSavedNote] = useState<string | null>(() => (saved ? savedWords(saved.version, saved.updatedAt, saved.updatedBy, timeZone) : null));
 
   const action = useCallback(
     async (prev: FormState, formData: FormData) => {
@@ -114,11 +116,11 @@ export function ElectricalPlan({ vehicleId, saved, canSave }: { vehicleId: strin
       const next = (await saveElectricalPlanAction(prev, formData)) as FormState<{ version: number; updatedAt: string; updatedBy: string | null }>;
       if (next.status === "ok" && next.data) {
         setSavedJson(sent);
-        setSavedNote(savedWords(next.data.version, next.data.updatedAt, next.data.updatedBy));
+        setSavedNote(savedWords(next.data.version, next.data.updatedAt, next.data.updatedBy, timeZone));
       }
       return next as FormState;
     },
-    [],
+    [timeZone],
   );
   const { state, formAction, errorOf } = useFormAction(action);
   const serverError = (field: string) => (state.status === "error" ? errorOf(field) : undefined);

@@ -15,6 +15,7 @@ import { SideView } from "./side-view";
 import { SpringAdviceCard, type SpringText } from "./spring-advice";
 import { TyreCheck } from "./tyre-check";
 import { WeighbridgeCard } from "./weighbridge-card";
+import { formatCalendarDay } from "@/lib/format/dates";
 
 /** The tab opens with a driver and a passenger aboard; everything else is added by the user. */
 const START_LOADING: Loading = { occupants: 2, fuelL: 0, waterL: 0, cargoKg: 0, trailerAtmKg: 0, towballKg: 0 };
@@ -135,7 +136,7 @@ export function MassWorkspace({ data }: { data: MassTabData }) {
             title="Loads, limits and headroom"
             description={
               figures?.base?.source === "measured"
-                ? `Starting from the last weighbridge ticket${context.measured?.measuredAt ? ` (${new Date(context.measured.measuredAt).toLocaleDateString("en-AU")})` : ""}, with the plan and the loading.`
+                ? `Starting from the last weighbridge ticket${context.measured?.measuredAt ? ` (${formatCalendarDay(context.measured.measuredAt)})` : ""}, with the plan and the loading.`
                 : "Starting from the maker's kerb masses (full main tank), with fitted and planned items and the loading."
             }
           />

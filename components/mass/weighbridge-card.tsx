@@ -10,6 +10,7 @@ import type { Reconciliation } from "@/lib/commands/mass";
 import type { FormState } from "@/lib/server/form-state";
 import { acceptAttribute } from "@/lib/uploads/checks";
 import { WEIGHBRIDGE_CAUTION } from "./cautions";
+import { formatCalendarDay } from "@/lib/format/dates";
 
 type TicketFile = { filename: string; contentType: string; sizeBytes: number; href: string };
 type Ticket = { id: string; ticketNumber: string; weighedAt: string; frontKg: number; rearKg: number; grossKg: number; file: TicketFile | null };
@@ -152,7 +153,7 @@ export function WeighbridgeCard({
           <TBody>
             {tickets.map((t) => (
               <Tr key={t.id}>
-                <Td>{new Date(t.weighedAt).toLocaleDateString("en-AU", { day: "numeric", month: "short", year: "numeric" })}</Td>
+                <Td>{formatCalendarDay(t.weighedAt)}</Td>
                 <Td>{t.ticketNumber}</Td>
                 <Td numeric>
                   <Quantity value={t.frontKg} unit="kg" />

@@ -1,9 +1,10 @@
 import { decideQuoteAction } from "@/app/(app)/quotes/actions";
 import { ActionForm } from "@/components/jobs/action-form";
-import { formatDate, QuoteStatePill } from "@/components/jobs/status";
+import { QuoteStatePill } from "@/components/jobs/status";
 import { Table, TBody, Td, Th, THead, Tr } from "@/components/ui";
 import type { QuoteState } from "@/lib/jobs";
 import { formatCents } from "@/lib/money";
+import { formatCalendarDay } from "@/lib/format/dates";
 
 type CompareQuote = {
   id: string;
@@ -122,7 +123,7 @@ export function QuoteCompare({
             <Td numeric>—</Td>
             {shown.map((q) => (
               <Td key={q.id} numeric className={q.expired ? "font-semibold text-danger" : undefined}>
-                {formatDate(q.validUntil)}
+                {formatCalendarDay(q.validUntil)}
                 {q.expired ? " (lapsed)" : ""}
               </Td>
             ))}

@@ -90,5 +90,3 @@ export function criterionText(c: Pick<Criterion, "attribute" | "label" | "op" | 
 
 export const dollars = (cents: number) => (cents / 100).toLocaleString("en-AU", { style: "currency", currency: "AUD" });
 
-export const dateText = (value: Date | string | null | undefined) =>
-  value ? new Date(value).toLocaleDateString("en-AU", { day: "numeric", month: "short", year: "numeric", timeZone: "UTC" }) : "—";

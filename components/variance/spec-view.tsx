@@ -1,8 +1,9 @@
-import { CATEGORY_LABELS, EVIDENCE_LABELS, REQUIREMENT_LABELS, dateText, dollars, requirementText } from "@/components/standards/labels";
+import { CATEGORY_LABELS, EVIDENCE_LABELS, REQUIREMENT_LABELS, dollars, requirementText } from "@/components/standards/labels";
 import { Card, CardBody, CardHeader, Quantity, StatusPill, Table, TBody, Td, Th, THead, Tr } from "@/components/ui";
 import type { VehicleVarianceView } from "@/lib/commands/variance";
 import type { Criterion, LineCategory, LineStatus } from "@/lib/variance";
 import { LINE_STATUS_TONES, LINE_STATUS_WORDS, LineStatusPill } from "./line-status";
+import { formatCalendarDay } from "@/lib/format/dates";
 
 type Line = VehicleVarianceView["lines"][number];
 
@@ -11,7 +12,7 @@ function detail(line: Line): string {
   switch (line.status) {
     case "short": {
       const expired = line.expiredFitmentIds.length > 0 ? " (the one on board has expired)" : "";
-      const lapsed = line.concessionExpiredAt ? ` · concession ended ${dateText(line.concessionExpiredAt)}` : "";
+      const lapsed = line.concessionExpiredAt ? ` · concession ended ${formatCalendarDay(line.concessionExpiredAt)}` : "";
       return `${line.missingQuantity} of ${line.requiredQuantity || line.missingQuantity} missing${expired}${lapsed}`;
     }
     case "off_spec":
@@ -21,7 +22,7 @@ function detail(line: Line): string {
     case "unproven":
       return `Waiting for accepted ${line.evidenceMissing.map((k) => EVIDENCE_LABELS[k] ?? k).join(", ").toLowerCase() || "evidence"}`;
     case "concession":
-      return line.concession ? `${line.concession.reason} (until ${dateText(line.concession.expiresAt)})` : "Covered by a concession";
+      return line.concession ? `${line.concession.reason} (until ${formatCalendarDay(line.concession.expiresAt)})` : "Covered by a concession";
     case "prohibited_fitted":
       return "Must not be fitted: remove it";
     case "optional_absent":

@@ -59,6 +59,8 @@ import {
 } from "./register-params";
 import { VARIANCE_LABELS, VariancePill, type VarianceStatusValue } from "./variance-pill";
 import { VEHICLE_STATE_LABELS, VehicleStatePill } from "./vehicle-state";
+import { Instant } from "@/components/providers/time-zone";
+import { formatCalendarDay } from "@/lib/format/dates";
 
 /** A row of GET /api/vehicles, as JSON (dates are ISO strings). */
 export type RegisterItem = {
@@ -123,19 +125,6 @@ const COLUMN_LABELS: Record<RegisterColumn, string> = {
 };
 const NUMERIC: ReadonlySet<string> = new Set(["odometerKm", "buildYear"]);
 const SORTABLE: ReadonlySet<string> = new Set(REGISTER_SORTS);
-
-const dayFormat = new Intl.DateTimeFormat("en-AU", {
-  day: "numeric",
-  month: "short",
-  year: "numeric",
-  timeZone: "UTC",
-});
-const stampFormat = new Intl.DateTimeFormat("en-AU", {
-  day: "numeric",
-  month: "short",
-  hour: "2-digit",
-  minute: "2-digit",
-});
 
 async function fetchPage(query: string): Promise<RegisterPage> {
   const response = await fetch(`/api/vehicles?${query}`, {
@@ -264,10 +253,10 @@ function columnsFor(canManage: boolean, control: "md" | "lg"): ColumnDef<Registe
         const d = new Date(v);
         return d.getTime() < Date.now() ? (
           <StatusPill tone="danger" size="sm">
-            {`Expired ${dayFormat.format(d)}`}
+            {`Expired ${formatCalendarDay(d)}`}
           </StatusPill>
         ) : (
-          dayFormat.format(d)
+          formatCalendarDay(d)
         );
       },
     },
@@ -276,7 +265,7 @@ function columnsFor(canManage: boolean, control: "md" | "lg"): ColumnDef<Registe
       enableSorting: false,
       cell: ({ row }) => row.original.buildYear ?? <Muted />,
     },
-    { id: "updatedAt", cell: ({ row }) => stampFormat.format(new Date(row.original.updatedAt)) },
+    { id: "updatedAt", cell: ({ row }) => <Instant at={row.original.updatedAt} /> },
   ];
   // Sorting runs on the server; TanStack only needs to know a column has a value to sort by.
   const sortValue: Record<string, (r: RegisterItem) => string | number | null> = {

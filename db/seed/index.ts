@@ -62,7 +62,7 @@ const STATE_PATTERN = ["in_service", "in_service", "in_service", "in_service", "
 async function seedOrganisation(tx: Database, scenario: DemoOrganisation, passwordHash: string) {
   const [org] = await tx
     .insert(organisations)
-    .values({ slug: scenario.slug, name: scenario.name, approvalThresholdCents: scenario.approvalThresholdCents })
+    .values({ slug: scenario.slug, name: scenario.name, approvalThresholdCents: scenario.approvalThresholdCents, timeZone: scenario.timeZone })
     .returning();
   if (!org) throw new Error("organisation insert failed");
 

@@ -35,6 +35,8 @@ export type DemoOrganisation = {
   slug: string;
   name: string;
   approvalThresholdCents: number;
+  /** IANA zone the organisation's dates and times read in. */
+  timeZone: string;
   depots: { code: string; name: string; region: string }[];
   firms: { name: string; email: string; phone: string; abn: string }[];
   people: DemoPerson[];
@@ -135,6 +137,7 @@ export const ORGANISATIONS: DemoOrganisation[] = [
     slug: "mirrabel-health",
     name: "Mirrabel Remote Health Service",
     approvalThresholdCents: 500_000,
+    timeZone: "Australia/Darwin",
     depots: [
       { code: "OCW", name: "Ochre Well", region: "Northern plains" },
       { code: "SPC", name: "Salt Pan Creek", region: "Lake country" },
@@ -163,6 +166,7 @@ export const ORGANISATIONS: DemoOrganisation[] = [
     slug: "gidgee-trust",
     name: "Gidgee Range Parks & Land Trust",
     approvalThresholdCents: 300_000,
+    timeZone: "Australia/Perth",
     depots: [
       { code: "BWX", name: "Blackwood Crossing", region: "Western range" },
       { code: "EMS", name: "Emu Soak", region: "Sand plain" },

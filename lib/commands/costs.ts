@@ -27,6 +27,7 @@ import { AppError, conflict, forbidden, notFound } from "@/lib/server/errors";
 import { fileResponse } from "@/lib/server/files";
 import { command, query } from "@/lib/server/operation";
 import type { SignedIn } from "@/lib/server/session";
+import { formatCalendarDay } from "@/lib/format/dates";
 
 // ─── Input pieces (shared by forms, route handlers and the OpenAPI document) ───────
 
@@ -441,12 +442,11 @@ export const budgetUpdateSchema = z
   .transform(budgetTransform)
   .meta({ id: "BudgetUpdate" });
 
-const formatDay = (d: Date) => d.toLocaleDateString("en-AU", { day: "numeric", month: "short", year: "numeric", timeZone: "UTC" });
 
 async function refuseOverlap(user: SignedIn, tx: Tx, costCentre: string, start: Date, end: Date, exceptId?: string) {
   const other = await overlappingBudget(tx, user, costCentre, start, end, exceptId);
   if (other) {
-    throw conflict(`${costCentre} already has a budget for ${formatDay(other.periodStart)} – ${formatDay(other.periodEnd)}; periods of one cost centre must not overlap`);
+    throw conflict(`${costCentre} already has a budget for ${formatCalendarDay(other.periodStart)} – ${formatCalendarDay(other.periodEnd)}; periods of one cost centre must not overlap`);
   }
 }
 

@@ -40,6 +40,7 @@ import type { SignedIn } from "@/lib/server/session";
 import { sha256OfBytes, storage } from "@/lib/server/storage";
 import { checkUploadSize, checkUploadType, displayFileName, evidenceStorageKey } from "@/lib/uploads";
 import { appUrl } from "./links";
+import { formatDayTime } from "@/lib/format/dates";
 
 // ─── Photos ─────────────────────────────────────────────────────────────────────
 
@@ -284,7 +285,7 @@ export const recordDefect = command({
         grounded = true;
       }
       const managers = await managerRecipients(tx, user.orgId);
-      const when = createdAt.toLocaleString("en-AU", { dateStyle: "medium", timeStyle: "short", timeZone: "Australia/Darwin" });
+      const when = formatDayTime(createdAt, user.timeZone);
       const where =
         row.latitude !== null && row.longitude !== null ? `Reported at ${row.latitude.toFixed(5)}, ${row.longitude.toFixed(5)} (the driver's phone position).` : null;
       for (const manager of managers) {

@@ -28,6 +28,7 @@ import { command, query } from "@/lib/server/operation";
 import { sha256OfBytes, storage } from "@/lib/server/storage";
 import { acceptedTypesInWords, displayFileName, EVIDENCE_MAX_BYTES, evidenceStorageKey, EXTENSIONS, type AcceptedType } from "@/lib/uploads";
 import { prepareUpload } from "./evidence";
+import { formatDay } from "@/lib/format/dates";
 
 /**
  * Mass and fit-out of one vehicle: the figures of record (axle loads, checks, binding limit),
@@ -700,7 +701,7 @@ const CHEMISTRY_WORDS: Record<ElectricalPlan["chemistry"], string> = {
 };
 
 /** The saved 12 V plan as the statement prints it. */
-export function electricalStatement(saved: SavedElectricalPlan | null): StatementData["electrical"] {
+export function electricalStatement(saved: SavedElectricalPlan | null, timeZone: string): StatementData["electrical"] {
   if (!saved) return null;
   const { summary, plan } = saved;
   const b = summary.battery;
@@ -733,7 +734,7 @@ export function electricalStatement(saved: SavedElectricalPlan | null): Statemen
       fuseA: run.fuseA,
       fuseLocation: run.fuseLocation,
     })),
-    savedText: `Saved plan, version ${saved.version}, ${new Date(saved.updatedAt).toLocaleDateString("en-AU", { day: "numeric", month: "short", year: "numeric" })}${saved.updatedBy ? ` by ${saved.updatedBy}` : ""}.`,
+    savedText: `Saved plan, version ${saved.version}, ${formatDay(saved.updatedAt, timeZone)}${saved.updatedBy ? ` by ${saved.updatedBy}` : ""}.`,
   };
 }
 
@@ -771,6 +772,7 @@ export const statementQuery = query({
     const data: StatementData = {
       orgName: org.name,
       generatedAt: now,
+      timeZone: user.timeZone,
       generatedBy: user.name,
       vehicle: {
         fleetNumber: context.vehicle.fleetNumber,
@@ -820,7 +822,7 @@ export const statementQuery = query({
         position: positionText(p),
         kind: p.massKind === "variable" ? "Variable" : "Constant",
       })),
-      electrical: electricalStatement(await savedPlanOf(db(), user.orgId, context.vehicle.id)),
+      electrical: electricalStatement(await savedPlanOf(db(), user.orgId, context.vehicle.id), user.timeZone),
       measured: context.measured
         ? { ...context.measured, measuredAt: context.measured.measuredAt ? new Date(context.measured.measuredAt) : null }
         : null,

@@ -7,6 +7,7 @@ import { renderMail } from "@/lib/mail/render";
 import type { Role } from "@/lib/permissions";
 import type { CommandContext } from "@/lib/server/operation";
 import { appUrl } from "./links";
+import { formatCalendarDay } from "@/lib/format/dates";
 
 /**
  * E-mail notices of jobs, quotes and evidence, queued in the outbox inside the command's
@@ -80,7 +81,7 @@ export async function noticeJobOffered(tx: Tx, mail: Mail, orgId: string, orgNam
     heading: `${orgName} asks for your quote`,
     paragraphs: [
       `${jobName(job)}: ${job.title}.`,
-      dueAt ? `Quotes are due by ${dueAt.toLocaleDateString("en-AU", { day: "numeric", month: "long", year: "numeric" })}.` : "No due date was set.",
+      dueAt ? `Quotes are due by ${formatCalendarDay(dueAt)}.` : "No due date was set.",
     ],
     action: { label: "Open the job", url: appUrl(`/jobs/${job.id}`) },
   });

@@ -1,6 +1,7 @@
 import "server-only";
 import { and, asc, count, eq, ne, sql } from "drizzle-orm";
 import { z } from "zod";
+import { isTimeZone } from "@/lib/format/dates";
 import { db, type DbOrTx, type Tx } from "@/db/client";
 import { contractorFirms, depots, memberships, organisations, users } from "@/db/schema";
 import { renderMail } from "@/lib/mail/render";
@@ -315,6 +316,12 @@ export const updateSettings = command({
     springStiffMarginKg: kg("Stiff spring margin", 2000),
     weighbridgeToleranceKg: kg("Weighbridge tolerance", 500),
     gstMethod: z.enum(GST_METHODS, { error: "Choose how GST is rounded" }),
+    /** Absent: left as it is. */
+    timeZone: z
+      .string({ error: "Choose the time zone" })
+      .trim()
+      .refine(isTimeZone, { error: "Choose a time zone from the list (such as Australia/Darwin)" })
+      .optional(),
   }),
   permission: ["manage", "OrgSettings"],
   run: async ({ user, input, tx, audit }) => {
@@ -329,6 +336,7 @@ export const updateSettings = command({
       springStiffMarginKg: input.springStiffMarginKg,
       weighbridgeToleranceKg: input.weighbridgeToleranceKg,
       gstMethod: input.gstMethod,
+      timeZone: input.timeZone ?? before.timeZone,
     };
     await tx.update(organisations).set(after).where(eq(organisations.id, user.orgId));
     await audit({ action: "settings.update", entityType: "organisation", entityId: user.orgId, before, after });

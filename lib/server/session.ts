@@ -14,6 +14,8 @@ export type SignedIn = Actor & {
   email: string;
   name: string;
   orgName: string;
+  /** The organisation's time zone: instants on screens and in mail read in it. */
+  timeZone: string;
   via: "session" | "token";
   ability: AppAbility;
 };
@@ -39,6 +41,7 @@ async function standingToSignedIn(
     email: row.email,
     name: row.name,
     orgName: row.orgName,
+    timeZone: row.orgTimeZone,
     via,
     ability: defineAbilityFor(actor),
   };

@@ -1,6 +1,7 @@
 import { Document, Page, StyleSheet, Text, View, renderToBuffer } from "@react-pdf/renderer";
 import type { ReactNode } from "react";
 import type { StatementData } from "./types";
+import { formatCalendarDay, formatDay } from "@/lib/format/dates";
 
 /**
  * The printable mass statement: an A4 PDF laid out from StatementData with the standard PDF
@@ -52,7 +53,6 @@ export function kg(value: number | null | undefined, withSign = false): string {
   return `${(withSign ? signed : nf).format(rounded)} kg`;
 }
 
-const dateText = (d: Date) => d.toLocaleDateString("en-AU", { day: "numeric", month: "short", year: "numeric", timeZone: "Australia/Adelaide" });
 
 function Fact({ label, value }: { label: string; value: string | null }) {
   return (
@@ -137,7 +137,7 @@ export function StatementDocument({ data }: { data: StatementData }) {
           <Fact label="VIN" value={v.vin} />
           <Fact label="Depot" value={v.depot} />
           <Fact label="Organisation" value={data.orgName} />
-          <Fact label="Prepared" value={`${dateText(data.generatedAt)} by ${data.generatedBy}`} />
+          <Fact label="Prepared" value={`${formatDay(data.generatedAt, data.timeZone)} by ${data.generatedBy}`} />
           <Fact label="Figures include" value={data.includePlanned ? "Fitted and planned items" : "Fitted items only"} />
         </View>
 
@@ -296,7 +296,7 @@ export function StatementDocument({ data }: { data: StatementData }) {
         <Section title="Weighbridge">
           {data.measured ? (
             <Text>
-              Last weighed{data.measured.measuredAt ? ` on ${dateText(data.measured.measuredAt)}` : ""}: front {kg(data.measured.frontKg)}, rear {kg(data.measured.rearKg)}
+              Last weighed{data.measured.measuredAt ? ` on ${formatCalendarDay(data.measured.measuredAt)}` : ""}: front {kg(data.measured.frontKg)}, rear {kg(data.measured.rearKg)}
               {data.measured.grossKg !== null ? `, gross ${kg(data.measured.grossKg)}` : ""}.
             </Text>
           ) : (

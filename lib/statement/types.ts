@@ -4,6 +4,8 @@ export type StatementRow = { label: string; loadKg: number; capacityKg: number; 
 export type StatementData = {
   orgName: string;
   generatedAt: Date;
+  /** The organisation's zone: the preparation date reads in it. */
+  timeZone: string;
   generatedBy: string;
   vehicle: {
     fleetNumber: string;

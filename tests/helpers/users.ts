@@ -21,5 +21,5 @@ export async function signedInAs(database: Database, email: string): Promise<Sig
     firmId: row.membership.firmId,
     depotId: row.membership.depotId,
   };
-  return { ...actor, email: row.user.email, name: row.user.name, orgName: row.org.name, via: "session", ability: defineAbilityFor(actor) };
+  return { ...actor, email: row.user.email, name: row.user.name, orgName: row.org.name, timeZone: row.org.timeZone, via: "session", ability: defineAbilityFor(actor) };
 }

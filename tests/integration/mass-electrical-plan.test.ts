@@ -136,7 +136,7 @@ describe("the saved 12 V plan", () => {
     expect(data.electrical!.runs[0]).toMatchObject({ label: "Battery to fridge outlet" });
     expect(data.electrical!.runs[0]!.size).toMatch(/mm²$/);
     expect(data.cautions.some((c) => c.includes("Wiring follows"))).toBe(true);
-    expect(electricalStatement(null)).toBeNull();
+    expect(electricalStatement(null, "Australia/Darwin")).toBeNull();
     const pdf = await renderStatementPdf(data);
     expect(pdf.subarray(0, 5).toString("latin1")).toBe("%PDF-");
     const served = await callRoute(statementRoute, { user: manager, params: { id: vehicle.id }, url: `http://localhost/api/vehicles/${vehicle.id}/statement` });

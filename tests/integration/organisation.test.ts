@@ -121,6 +121,26 @@ describe("depots and settings", () => {
     });
     expect(result.approvalThresholdCents).toBe(750_050);
   });
+
+  it("keeps the organisation's time zone, changes it to a known zone, and refuses an unknown one naming the field", async () => {
+    const settings = {
+      name: "Mirrabel Remote Health Service",
+      approvalThreshold: "5000",
+      personMassKg: "80",
+      brakeWarningMarginKg: "500",
+      springSoftMarginKg: "0",
+      springStiffMarginKg: "500",
+      weighbridgeToleranceKg: "50",
+      gstMethod: "per-line",
+    };
+    expect((await execute(updateSettings, admin, settings)).timeZone).toBe("Australia/Darwin");
+    expect((await execute(updateSettings, admin, { ...settings, timeZone: "Australia/Brisbane" })).timeZone).toBe("Australia/Brisbane");
+    expect((await signedInAs(database, "manager@mirrabel-health.example")).timeZone).toBe("Australia/Brisbane");
+    const error = await failure(execute(updateSettings, admin, { ...settings, timeZone: "Australia/Atlantis" }));
+    expect(error.code).toBe("validation_failed");
+    expect(error.details[0]?.field).toBe("timeZone");
+    await execute(updateSettings, admin, { ...settings, timeZone: "Australia/Darwin" });
+  });
 });
 
 describe("organisation boundary", () => {

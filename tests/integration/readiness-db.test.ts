@@ -223,7 +223,7 @@ describe("GET /api/vehicles/{id}/readiness", () => {
   it("answers the readiness to an assigned driver, 404 to another driver and to another organisation", async () => {
     // The route judges at the real time of the call: dates far from it keep the case stable.
     const id = await fittedVehicle({ forDriver: true, tracks: 1, registrationExpiry: day("2099-01-01"), extinguisher: { fittedAt: new Date() } });
-    const driverUser = { ...driver, email: DRIVER_EMAIL, name: "Test Readiness Driver", orgName: "Mirrabel", via: "session" as const, ability: defineAbilityFor(driver) };
+    const driverUser = { ...driver, email: DRIVER_EMAIL, name: "Test Readiness Driver", orgName: "Mirrabel", timeZone: "Australia/Darwin", via: "session" as const, ability: defineAbilityFor(driver) };
     const mine = await callRoute(readinessRoute, { user: driverUser, params: { id } });
     expect(mine.status).toBe(200);
     expect(mine.json).toMatchObject({ vehicleId: id, state: "not_ready", reasons: [{ code: "critical_line_short" }] });

@@ -2,12 +2,13 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { financeApprovalAction } from "@/app/(app)/quotes/actions";
 import { ActionForm } from "@/components/jobs/action-form";
-import { formatDate } from "@/components/jobs/status";
 import { Card, CardBody, CardHeader, EmptyState, PageHeader } from "@/components/ui";
 import { approvalsQueue } from "@/lib/commands/quotes";
 import { formatCents } from "@/lib/money";
 import { requirePermission } from "@/lib/server/guard";
 import { execute } from "@/lib/server/operation";
+import { Instant } from "@/components/providers/time-zone";
+import { formatCalendarDay } from "@/lib/format/dates";
 
 export const metadata: Metadata = { title: "Approvals" };
 
@@ -29,8 +30,13 @@ export default async function ApprovalsPage() {
                   <Link href={`/jobs/${q.jobId}`} className="text-accent underline">
                     Job {q.jobNumber}: {q.jobTitle}
                   </Link>{" "}
-                  on {q.fleetNumber} · GST {formatCents(q.gstCents)} · valid until {formatDate(q.validUntil)}
-                  {q.acceptedBy ? ` · accepted by ${q.acceptedBy.decidedByName} on ${formatDate(q.acceptedBy.decidedAt)}` : ""}
+                  on {q.fleetNumber} · GST {formatCents(q.gstCents)} · valid until {formatCalendarDay(q.validUntil)}
+                  {q.acceptedBy ? (
+                    <>
+                      {` · accepted by ${q.acceptedBy.decidedByName} on `}
+                      <Instant at={q.acceptedBy.decidedAt} show="day" />
+                    </>
+                  ) : null}
                 </>
               }
             />

@@ -3,12 +3,13 @@ import Link from "next/link";
 import { BudgetActualChart } from "@/components/charts";
 import { dollarsOf } from "@/components/charts/format";
 import { BudgetForm, BudgetRowActions } from "@/components/costs/budget-forms";
-import { dayText, financialYear, financialYearLabel, financialYearOf } from "@/components/costs/periods";
+import { financialYear, financialYearLabel, financialYearOf } from "@/components/costs/periods";
 import { Card, CardBody, CardHeader, EmptyState, PageHeader, StatusPill, Table, TBody, Td, TFoot, Th, THead, Tr, type StatusTone } from "@/components/ui";
 import { ledgerFilterOptions, listBudgets } from "@/lib/commands/costs";
 import { isoDay } from "@/lib/exports";
 import { requirePermission } from "@/lib/server/guard";
 import { execute } from "@/lib/server/operation";
+import { formatCalendarDay } from "@/lib/format/dates";
 
 export const metadata: Metadata = { title: "Budgets" };
 
@@ -101,7 +102,7 @@ export default async function BudgetsPage({ searchParams }: { searchParams: Prom
                         </Link>
                       </Th>
                       <Td className="whitespace-nowrap">
-                        {dayText(b.periodStart)} – {dayText(b.periodEnd)}
+                        {formatCalendarDay(b.periodStart)} – {formatCalendarDay(b.periodEnd)}
                       </Td>
                       <Td numeric>{dollarsOf(b.budgetCents)}</Td>
                       <Td numeric>{dollarsOf(b.actualCents)}</Td>

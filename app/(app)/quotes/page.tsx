@@ -1,11 +1,12 @@
 import type { Metadata } from "next";
 import Link from "next/link";
-import { formatDate, QuoteStatePill } from "@/components/jobs/status";
+import { QuoteStatePill } from "@/components/jobs/status";
 import { EmptyState, PageHeader, Table, TBody, Td, Th, THead, Tr } from "@/components/ui";
 import { listQuotes } from "@/lib/commands/quotes";
 import { formatCents } from "@/lib/money";
 import { requirePermission } from "@/lib/server/guard";
 import { execute } from "@/lib/server/operation";
+import { formatCalendarDay } from "@/lib/format/dates";
 
 export const metadata: Metadata = { title: "Quotes" };
 
@@ -46,7 +47,7 @@ export default async function QuotesPage() {
                   <QuoteStatePill state={q.status} size="sm" />
                 </Td>
                 <Td numeric>{formatCents(q.totalCents)}</Td>
-                <Td>{formatDate(q.validUntil)}</Td>
+                <Td>{formatCalendarDay(q.validUntil)}</Td>
               </Tr>
             ))}
           </TBody>

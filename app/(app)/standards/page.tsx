@@ -1,11 +1,12 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { CreateStandardForm } from "@/components/standards/create-standard-form";
-import { EDITION_STATUS_LABELS, EDITION_STATUS_TONES, dateText } from "@/components/standards/labels";
+import { EDITION_STATUS_LABELS, EDITION_STATUS_TONES } from "@/components/standards/labels";
 import { Card, CardBody, CardHeader, EmptyState, PageHeader, StatusPill, Table, TBody, Td, Th, THead, Tr } from "@/components/ui";
 import { listStandardsQuery } from "@/lib/commands/standards";
 import { execute } from "@/lib/server/operation";
 import { requireStandardsReader } from "./guard";
+import { Instant } from "@/components/providers/time-zone";
 
 export const metadata: Metadata = { title: "Standards" };
 
@@ -48,7 +49,7 @@ export default async function StandardsPage() {
                         <StatusPill tone={EDITION_STATUS_TONES.published} size="sm">
                           {EDITION_STATUS_LABELS.published}
                         </StatusPill>
-                        Edition {published.number} · {published.lineCount} lines · since {dateText(published.publishedAt)}
+                        Edition {published.number} · {published.lineCount} lines · since <Instant at={published.publishedAt} show="day" />
                       </Link>
                     ) : (
                       <span className="text-muted">Nothing published yet</span>

@@ -2,6 +2,7 @@ import type { Metadata } from "next";
 import { SettingsForm } from "@/components/admin/settings-form";
 import { Card, CardBody, PageHeader } from "@/components/ui";
 import { readSettings } from "@/lib/commands/organisation";
+import { timeZoneChoices } from "@/lib/format/dates";
 import { requirePermission } from "@/lib/server/guard";
 import { execute } from "@/lib/server/operation";
 
@@ -17,7 +18,7 @@ export default async function SettingsPage() {
       {readOnly && <p className="text-muted">Only an administrator can change these.</p>}
       <Card>
         <CardBody>
-          <SettingsForm settings={settings} readOnly={readOnly} />
+          <SettingsForm settings={settings} readOnly={readOnly} timeZones={timeZoneChoices()} />
         </CardBody>
       </Card>
     </div>

@@ -2,7 +2,6 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { DefectStatePill, SeverityPill } from "@/components/defects/defect-pills";
-import { formatWhen } from "@/components/defects/defect-time";
 import { ReturnToServicePanel, TriagePanel } from "@/components/defects/triage-panel";
 import { Card, CardBody, CardHeader, PageHeader } from "@/components/ui";
 import { db } from "@/db/client";
@@ -12,6 +11,7 @@ import { CATEGORY_LABELS, SEVERITY_LABELS, STATE_HINTS, categoryLabel, defectTit
 import { AppError } from "@/lib/server/errors";
 import { requirePermission } from "@/lib/server/guard";
 import { execute } from "@/lib/server/operation";
+import { Instant } from "@/components/providers/time-zone";
 
 export const metadata: Metadata = { title: "Defect" };
 
@@ -32,7 +32,7 @@ export default async function DefectDetailPage({ params }: { params: Promise<{ i
     ["Vehicle", <Link key="v" href={vehicleHref} className="font-semibold text-accent underline underline-offset-4">{found.fleetNumber}{found.registration ? ` · ${found.registration}` : ""}</Link>],
     ["How bad", SEVERITY_LABELS[defect.severity]],
     ["About", isCategory(defect.category) ? CATEGORY_LABELS[defect.category] : categoryLabel(defect.category)],
-    ["Reported by", `${found.reporterName ?? "Unknown"} · ${formatWhen(defect.createdAt)}`],
+    ["Reported by", <span key="r">{found.reporterName ?? "Unknown"} · <Instant at={defect.createdAt} /></span>],
     ["Odometer", defect.odometerKm !== null ? `${defect.odometerKm.toLocaleString("en-AU")} km` : "Not given"],
     ["Location", defect.latitude !== null && defect.longitude !== null ? `${defect.latitude.toFixed(5)}, ${defect.longitude.toFixed(5)}` : "Not given"],
   ];
@@ -125,7 +125,7 @@ export default async function DefectDetailPage({ params }: { params: Promise<{ i
                       <Link href={`/defects/${m.id}`} className="text-accent underline underline-offset-4">
                         {defectTitle(m.category, m.description)}
                       </Link>{" "}
-                      <span className="text-sm text-muted">· {formatWhen(m.createdAt)}</span>
+                      <span className="text-sm text-muted">· <Instant at={m.createdAt} /></span>
                     </li>
                   ))}
                 </ul>

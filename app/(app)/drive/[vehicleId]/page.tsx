@@ -1,6 +1,5 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
-import { formatWhen } from "@/components/defects/defect-time";
 import { ReadinessPanel } from "@/components/readiness";
 import { PageHeader, buttonClasses } from "@/components/ui";
 import { VehicleStatePill } from "@/components/vehicles/vehicle-state";
@@ -9,6 +8,8 @@ import { driverVehicles, latestChecksByVehicle, listDefects } from "@/db/defects
 import { loadVehicleReadiness } from "@/db/readiness";
 import { requirePermission } from "@/lib/server/guard";
 import { MyReports } from "@/components/drive/my-reports";
+import { Instant } from "@/components/providers/time-zone";
+import { faultCount } from "@/components/drive/fault-count";
 
 export const metadata: Metadata = { title: "My vehicle" };
 
@@ -56,7 +57,13 @@ export default async function DriveVehiclePage({ params }: { params: Promise<{ v
         </a>
       </div>
       <p className="text-base text-muted" data-testid="last-check">
-        {last ? `Your last check: ${formatWhen(last.completedAt)} · ${last.faults === 0 ? "no faults" : last.faults === 1 ? "1 fault" : `${last.faults} faults`}` : "You have not checked this vehicle yet."}
+        {last ? (
+          <>
+            Your last check: <Instant at={last.completedAt} /> · {faultCount(last.faults)}
+          </>
+        ) : (
+          "You have not checked this vehicle yet."
+        )}
       </p>
       <section aria-labelledby="vehicle-reports-heading" className="flex flex-col gap-3">
         <h2 id="vehicle-reports-heading" className="text-xl font-bold">

@@ -5,7 +5,7 @@ import { EvidenceReview } from "@/components/evidence/evidence-review";
 import { EvidenceUpload } from "@/components/evidence/evidence-upload";
 import { ActionForm } from "@/components/jobs/action-form";
 import { OfferForm } from "@/components/jobs/offer-form";
-import { dateInputValue, formatDate, JobStatePill, LineStatusPill, QuoteStatePill } from "@/components/jobs/status";
+import { dateInputValue, JobStatePill, LineStatusPill, QuoteStatePill } from "@/components/jobs/status";
 import { QuoteCompare } from "@/components/quotes/quote-compare";
 import { Card, CardBody, CardHeader, Caution, EmptyState, PageHeader, Quantity, Table, TBody, Td, Th, THead, Tr } from "@/components/ui";
 import { db } from "@/db/client";
@@ -18,6 +18,7 @@ import { execute } from "@/lib/server/operation";
 import { and, asc, eq } from "drizzle-orm";
 import { cancelJobAction, closeJobAction, progressJobAction, signOffJobAction } from "../actions";
 import { startQuoteAction } from "../../quotes/actions";
+import { formatCalendarDay } from "@/lib/format/dates";
 
 export const metadata: Metadata = { title: "Job" };
 
@@ -59,7 +60,7 @@ export default async function JobPage({ params }: { params: Promise<{ id: string
             description={
               job.dueAt ? (
                 <span className={job.overdue ? "font-semibold text-danger" : undefined}>
-                  Wanted by {formatDate(job.dueAt)}
+                  Wanted by {formatCalendarDay(job.dueAt)}
                   {job.overdue ? " — overdue" : ""}
                 </span>
               ) : (
@@ -134,7 +135,7 @@ export default async function JobPage({ params }: { params: Promise<{ id: string
                   "Not yet"
                 ) : (
                   <>
-                    <Quantity value={vehicle.measuredGrossKg} unit="kg" digits={0} /> gross ({vehicle.measuredFrontKg} front, {vehicle.measuredRearKg} rear) on {formatDate(vehicle.measuredAt)}
+                    <Quantity value={vehicle.measuredGrossKg} unit="kg" digits={0} /> gross ({vehicle.measuredFrontKg} front, {vehicle.measuredRearKg} rear) on {formatCalendarDay(vehicle.measuredAt)}
                   </>
                 )}
               </dd>
@@ -151,7 +152,7 @@ export default async function JobPage({ params }: { params: Promise<{ id: string
               <ul className="text-sm">
                 {offers.map((o) => (
                   <li key={o.firmId}>
-                    {o.firmName} — quotes due {formatDate(o.dueAt)}
+                    {o.firmName} — quotes due {formatCalendarDay(o.dueAt)}
                   </li>
                 ))}
               </ul>

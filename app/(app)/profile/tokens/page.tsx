@@ -7,11 +7,10 @@ import { appUrl } from "@/lib/commands/links";
 import { ROLE_LABELS } from "@/lib/permissions";
 import { requirePermission } from "@/lib/server/guard";
 import { execute } from "@/lib/server/operation";
+import { formatDayTime } from "@/lib/format/dates";
 
 export const metadata: Metadata = { title: "API tokens" };
 
-const when = (d: Date | null) =>
-  d ? d.toLocaleString("en-AU", { day: "numeric", month: "short", year: "numeric", hour: "2-digit", minute: "2-digit", timeZone: "UTC", timeZoneName: "short" }) : "Never";
 
 export default async function TokensPage() {
   const user = await requirePermission("manage", "ApiToken");
@@ -59,12 +58,12 @@ export default async function TokensPage() {
                     <Td>
                       <code className="font-mono text-sm">{t.prefix}…</code>
                     </Td>
-                    <Td className="whitespace-nowrap">{when(t.createdAt)}</Td>
-                    <Td className="whitespace-nowrap">{when(t.lastUsedAt)}</Td>
+                    <Td className="whitespace-nowrap">{formatDayTime(t.createdAt, user.timeZone)}</Td>
+                    <Td className="whitespace-nowrap">{t.lastUsedAt ? formatDayTime(t.lastUsedAt, user.timeZone) : "Never"}</Td>
                     <Td>
                       {t.revokedAt ? (
                         <StatusPill tone="neutral" size="sm">
-                          Revoked {when(t.revokedAt)}
+                          Revoked {formatDayTime(t.revokedAt, user.timeZone)}
                         </StatusPill>
                       ) : (
                         <StatusPill tone="ok" size="sm">

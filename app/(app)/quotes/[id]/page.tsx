@@ -2,7 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { ActionForm } from "@/components/jobs/action-form";
-import { dateInputValue, formatDate, QuoteStatePill } from "@/components/jobs/status";
+import { dateInputValue, QuoteStatePill } from "@/components/jobs/status";
 import { QuoteEditor } from "@/components/quotes/quote-editor";
 import { Card, CardBody, CardHeader, PageHeader, Table, TBody, Td, TFoot, Th, THead, Tr } from "@/components/ui";
 import { getQuote } from "@/lib/commands/quotes";
@@ -12,6 +12,8 @@ import { AppError } from "@/lib/server/errors";
 import { requirePermission } from "@/lib/server/guard";
 import { execute } from "@/lib/server/operation";
 import { withdrawQuoteAction } from "../actions";
+import { Instant } from "@/components/providers/time-zone";
+import { formatCalendarDay } from "@/lib/format/dates";
 
 export const metadata: Metadata = { title: "Quote" };
 
@@ -109,7 +111,7 @@ export default async function QuotePage({ params }: { params: Promise<{ id: stri
                 </TFoot>
               </Table>
               <p className="text-sm text-muted">{detail.methodDescription}</p>
-              <p className="text-sm">Valid until {formatDate(quote.validUntil)}{quote.notes ? ` · Notes: ${quote.notes}` : ""}</p>
+              <p className="text-sm">Valid until {formatCalendarDay(quote.validUntil)}{quote.notes ? ` · Notes: ${quote.notes}` : ""}</p>
             </div>
           )}
         </CardBody>
@@ -134,7 +136,7 @@ export default async function QuotePage({ params }: { params: Promise<{ id: stri
                 .sort((a, b) => a.at.getTime() - b.at.getTime())
                 .map((e, i) => (
                   <li key={i}>
-                    <span className="text-muted">{formatDate(e.at)}</span> {e.text}
+                    <span className="text-muted"><Instant at={e.at} show="day" /></span> {e.text}
                   </li>
                 ))}
             </ul>

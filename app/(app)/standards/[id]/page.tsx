@@ -3,12 +3,13 @@ import Link from "next/link";
 import { notFound } from "next/navigation";
 import { ComparePicker } from "@/components/standards/compare-picker";
 import { StartDraftButton } from "@/components/standards/edition-actions";
-import { EDITION_STATUS_LABELS, EDITION_STATUS_TONES, dateText } from "@/components/standards/labels";
+import { EDITION_STATUS_LABELS, EDITION_STATUS_TONES } from "@/components/standards/labels";
 import { Card, CardBody, CardHeader, PageHeader, StatusPill, Table, TBody, Td, Th, THead, Tr } from "@/components/ui";
 import { getStandard } from "@/lib/commands/standards";
 import { AppError } from "@/lib/server/errors";
 import { execute } from "@/lib/server/operation";
 import { requireStandardsReader } from "../guard";
+import { Instant } from "@/components/providers/time-zone";
 
 export const metadata: Metadata = { title: "Standard" };
 
@@ -57,7 +58,16 @@ export default async function StandardPage({ params }: { params: Promise<{ id: s
               </Td>
               <Td numeric>{e.lineCount}</Td>
               <Td numeric>{e.vehicleCount}</Td>
-              <Td>{e.publishedAt ? `${dateText(e.publishedAt)}${e.publishedByName ? ` by ${e.publishedByName}` : ""}` : <span className="text-muted">—</span>}</Td>
+              <Td>
+                {e.publishedAt ? (
+                  <>
+                    <Instant at={e.publishedAt} show="day" />
+                    {e.publishedByName ? ` by ${e.publishedByName}` : ""}
+                  </>
+                ) : (
+                  <span className="text-muted">—</span>
+                )}
+              </Td>
               <Td className="max-w-md text-sm">{e.notes}</Td>
             </Tr>
           ))}

@@ -8,10 +8,12 @@ import { VinCheckDigitNote } from "@/components/vehicles/vin-note";
 import { getVehicle } from "@/lib/commands/vehicles";
 import { requirePermission } from "@/lib/server/guard";
 import { execute } from "@/lib/server/operation";
+import { formatCalendarDay } from "@/lib/format/dates";
 
 export const metadata: Metadata = { title: "Vehicle" };
 
-const day = (d: Date | null) => (d ? new Date(d).toLocaleDateString("en-AU", { day: "numeric", month: "short", year: "numeric", timeZone: "UTC" }) : null);
+/** Registration expiry and weighing dates are calendar days; null stays empty for the facts list. */
+const day = (d: Date | null) => (d ? formatCalendarDay(d) : null);
 
 function isPast(date: Date): boolean {
   return date.getTime() < Date.now();

@@ -1,11 +1,11 @@
 import type { Metadata } from "next";
 import { DefectTable } from "@/components/defects/defect-table";
-import { formatWhen } from "@/components/defects/defect-time";
 import { VehicleReadinessPanel } from "@/components/readiness";
 import { Card, CardBody, CardHeader, TBody, Table, Td, Th, THead, Tr } from "@/components/ui";
 import { db } from "@/db/client";
 import { listChecks, listDefects } from "@/db/defects";
 import { requirePermission } from "@/lib/server/guard";
+import { Instant } from "@/components/providers/time-zone";
 
 export const metadata: Metadata = { title: "Vehicle defects" };
 
@@ -55,7 +55,7 @@ export default async function VehicleDefectsPage({ params }: { params: Promise<{
                 <TBody>
                   {checks.map((c) => (
                     <Tr key={c.id}>
-                      <Td className="whitespace-nowrap">{formatWhen(c.completedAt)}</Td>
+                      <Td className="whitespace-nowrap"><Instant at={c.completedAt} /></Td>
                       <Td>{c.driverName ?? "—"}</Td>
                       <Td numeric>{c.items.length}</Td>
                       <Td numeric>{c.faults}</Td>

@@ -4,7 +4,6 @@ import { notFound } from "next/navigation";
 import { ConcessionForm, EndConcessionButton } from "@/components/fitments/concession-form";
 import { FitmentForm } from "@/components/fitments/fitment-form";
 import { FitmentsTable } from "@/components/fitments/fitments-table";
-import { dateText } from "@/components/standards/labels";
 import { Caution, Card, CardBody, CardHeader, EmptyState, Table, TBody, Td, Th, THead, Tr } from "@/components/ui";
 import { VehicleVariancePill } from "@/components/variance/line-status";
 import { BuildOrderCard, CloseFigures, VarianceLinesList, VarianceLinesTable, VarianceSummaryCounts } from "@/components/variance/spec-view";
@@ -15,6 +14,7 @@ import { getVehicleVariance, isDone } from "@/lib/commands/variance";
 import { AppError } from "@/lib/server/errors";
 import { requirePermission } from "@/lib/server/guard";
 import { execute } from "@/lib/server/operation";
+import { formatCalendarDay } from "@/lib/format/dates";
 
 export const metadata: Metadata = { title: "Spec check" };
 
@@ -154,7 +154,7 @@ export default async function SpecCheckPage({ params }: { params: Promise<{ id: 
                         <Td className="font-semibold">{codeOfKey.get(c.lineKey) ?? c.lineKey}</Td>
                         <Td>{c.reason}</Td>
                         <Td className="whitespace-nowrap">
-                          {dateText(c.expiresAt)}
+                          {formatCalendarDay(c.expiresAt)}
                           {!current && <span className="text-muted"> (ended)</span>}
                         </Td>
                         <Td>{c.approvedByName ?? "—"}</Td>

@@ -3,7 +3,7 @@ import Link from "next/link";
 import { notFound } from "next/navigation";
 import { ComparePicker } from "@/components/standards/compare-picker";
 import { PublishButton, RetireButton, StartDraftButton } from "@/components/standards/edition-actions";
-import { EDITION_STATUS_LABELS, EDITION_STATUS_TONES, dateText } from "@/components/standards/labels";
+import { EDITION_STATUS_LABELS, EDITION_STATUS_TONES } from "@/components/standards/labels";
 import { LineForm } from "@/components/standards/line-form";
 import { LinesTable } from "@/components/standards/lines-table";
 import { RolloutPanel } from "@/components/standards/rollout-panel";
@@ -14,6 +14,7 @@ import { getEdition } from "@/lib/commands/standards";
 import { AppError } from "@/lib/server/errors";
 import { execute } from "@/lib/server/operation";
 import { requireStandardsReader } from "../../../guard";
+import { Instant } from "@/components/providers/time-zone";
 
 export const metadata: Metadata = { title: "Edition" };
 
@@ -62,7 +63,12 @@ export default async function EditionPage({ params }: { params: Promise<{ id: st
       />
       <p className="text-sm text-muted">
         {lines.length} lines · {data.vehicleCount} {data.vehicleCount === 1 ? "vehicle" : "vehicles"} on this edition
-        {edition.publishedAt ? ` · published ${dateText(edition.publishedAt)}` : ""}
+        {edition.publishedAt ? (
+          <>
+            {" · published "}
+            <Instant at={edition.publishedAt} show="day" />
+          </>
+        ) : null}
         {edition.notes ? ` · ${edition.notes}` : ""}
       </p>
       {!draft && (

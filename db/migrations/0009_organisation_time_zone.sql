@@ -1,0 +1,1 @@
+ALTER TABLE `organisations` ADD `time_zone` text DEFAULT 'Australia/Adelaide' NOT NULL;
