@@ -23,6 +23,7 @@ import type { SignedIn } from "@/lib/server/session";
 import { sha256OfBytes, storage } from "@/lib/server/storage";
 import { jobFacts, moveJob } from "./jobs";
 import { noticeEvidenceLodged, noticeEvidenceRejected } from "./notices";
+import { addMonths } from "@/lib/readiness";
 
 const id = z.string({ error: "id is required" }).trim().min(1, { error: "id is required" }).max(64);
 const KIND_WORDS: Record<(typeof EVIDENCE_KINDS)[number], string> = {
@@ -143,7 +144,8 @@ async function fitmentForLine(tx: Tx, user: SignedIn, job: { id: string; vehicle
       quantity = Math.max(quantity, replaced.reduce((n, f) => n + f.quantity, 0));
     }
   }
-  const expiresAt = spec.expiryMonths ? new Date(Date.UTC(now.getUTCFullYear(), now.getUTCMonth() + spec.expiryMonths, now.getUTCDate())) : null;
+  // The same calendar-month rule as a fitment recorded by hand and as readiness reads it.
+  const expiresAt = spec.expiryMonths ? addMonths(now, spec.expiryMonths) : null;
   const [created] = await tx
     .insert(fitments)
     .values({

@@ -9,6 +9,7 @@ import { addMonths } from "@/lib/readiness";
 import { AppError, conflict, notFound } from "@/lib/server/errors";
 import { command, query } from "@/lib/server/operation";
 import type { SignedIn } from "@/lib/server/session";
+import { formatDay } from "@/lib/format/dates";
 
 /**
  * What is fitted to a vehicle (linked to a line of its edition by key, or an extra with its own
@@ -193,7 +194,7 @@ export const removeFitment = command({
   run: async ({ user, input, tx, audit, now }) => {
     const fitment = await findFitment(tx, user.orgId, input.id);
     if (!fitment) throw notFound("That fitment");
-    if (fitment.removedAt) throw conflict(`"${fitment.label}" was already removed on ${fitment.removedAt.toISOString().slice(0, 10)}.`);
+    if (fitment.removedAt) throw conflict(`"${fitment.label}" was already removed on ${formatDay(fitment.removedAt, user.timeZone)}.`);
     const updated = await tx
       .update(fitments)
       .set({ removedAt: now })
