@@ -118,7 +118,7 @@ type BriefRow = [id: string, state: VehicleFacts["state"], registrationExpiry: n
  * edition have no summary: their fitments' expiries are read with the full loader (they carry
  * no edition lines, so that is cheap).
  */
-async function briefStates(db: DbOrTx, actor: Actor, figures: readonly VehicleVarianceFigures[], now: Date): Promise<Map<string, ReadinessState>> {
+export async function readinessStatesFromFigures(db: DbOrTx, actor: Actor, figures: readonly VehicleVarianceFigures[], now: Date): Promise<Map<string, ReadinessState>> {
   const out = new Map<string, ReadinessState>();
   if (figures.length === 0) return out;
   const ids = figures.map((f) => f.vehicleId);
@@ -169,7 +169,7 @@ async function briefStates(db: DbOrTx, actor: Actor, figures: readonly VehicleVa
 
 /** The readiness state of each of the given vehicles the actor may see (ids it may not see are absent). */
 export async function readinessStatesFor(db: DbOrTx, actor: Actor, vehicleIds: readonly string[], now: Date = new Date()): Promise<Map<string, ReadinessState>> {
-  return briefStates(db, actor, await varianceFiguresFor(db, actor, vehicleIds, now), now);
+  return readinessStatesFromFigures(db, actor, await varianceFiguresFor(db, actor, vehicleIds, now), now);
 }
 
 /**
@@ -179,7 +179,7 @@ export async function readinessStatesFor(db: DbOrTx, actor: Actor, vehicleIds: r
 export async function fleetReadinessCounts(db: DbOrTx, actor: Actor, now: Date = new Date()): Promise<ReadinessCounts> {
   const counts: Record<ReadinessState, number> = { ready: 0, limited: 0, not_ready: 0 };
   const { details } = await loadFleetVarianceFigures(db, actor, {}, now);
-  const states = await briefStates(db, actor, details, now);
+  const states = await readinessStatesFromFigures(db, actor, details, now);
   for (const state of states.values()) counts[state] += 1;
   return { ready: counts.ready, limited: counts.limited, notReady: counts.not_ready, total: states.size };
 }

@@ -319,9 +319,14 @@ export async function varianceStatusByVehicle(
   vehicleIds: readonly string[],
   now: Date,
 ): Promise<VarianceStatuses> {
+  return statusesOf(await varianceFiguresFor(db, actor, vehicleIds, now));
+}
+
+/** The statuses of figures already read, and the first instant at which time alone could turn one. */
+export function statusesOf(figures: readonly VehicleVarianceFigures[]): VarianceStatuses {
   const byVehicle = new Map<string, VehicleVarianceStatus>();
   let validUntil: number | null = null;
-  for (const f of await varianceFiguresFor(db, actor, vehicleIds, now)) {
+  for (const f of figures) {
     byVehicle.set(f.vehicleId, f.status);
     if (f.validUntil !== null && (validUntil === null || f.validUntil < validUntil)) validUntil = f.validUntil;
   }

@@ -4,8 +4,9 @@ import type { VehicleVarianceStatus } from "@/lib/variance";
 import type { DbOrTx } from "./client";
 import { depots, editions, platforms, standards, users, vehicleDrivers, vehicles, type VehicleState } from "./schema";
 import { vehicleScope } from "./scope";
-import { readinessStatesFor } from "./readiness";
+import { readinessStatesFromFigures } from "./readiness";
 import { varianceStatusByVehicle, type VarianceStatuses } from "./variance";
+import { statusesOf, varianceFiguresFor } from "./variance-summary";
 
 export async function countVehiclesByState(db: DbOrTx, actor: Actor) {
   const rows = await db
@@ -248,9 +249,10 @@ export async function computeRegisterPage(
       .where(where)
       .orderBy(...order);
     const candidateIds = candidates.map((c) => c.id);
-    statuses = await varianceStatusByVehicle(db, actor, candidateIds, now);
-    // Trip readiness (variance, defects, grounding, expiries) is judged for the candidates in one batch too.
-    const readiness = p.readiness ? await readinessStatesFor(db, actor, candidateIds, now) : null;
+    const figures = await varianceFiguresFor(db, actor, candidateIds, now);
+    statuses = statusesOf(figures);
+    // Trip readiness (variance, defects, grounding, expiries) is judged in brief from the same figures.
+    const readiness = p.readiness ? await readinessStatesFromFigures(db, actor, figures, now) : null;
     const matched = candidates
       .filter((c) => (p.variance === "meets_standard" || p.variance === "gaps" ? statuses.byVehicle.get(c.id) === p.variance : true))
       .filter((c) => (readiness ? readiness.get(c.id) === p.readiness : true))
