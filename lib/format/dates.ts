@@ -50,11 +50,16 @@ export function isTimeZone(zone: string): boolean {
   }
 }
 
-/** The zones an organisation may choose, Australian ones first. */
-export function timeZoneChoices(): string[] {
+/**
+ * The zones an organisation may choose, Australian ones first, then UTC and the rest; the zone
+ * it has now is always among them (an alias such as "Australia/Canberra" is valid but is not
+ * in the runtime's canonical list), so saving the form never changes it unasked.
+ */
+export function timeZoneChoices(current?: string): string[] {
   const all = Intl.supportedValuesOf("timeZone");
   const australian = all.filter((z) => z.startsWith("Australia/"));
-  return [...australian, ...all.filter((z) => !z.startsWith("Australia/"))];
+  const choices = [...australian, "UTC", ...all.filter((z) => !z.startsWith("Australia/") && z !== "UTC")];
+  return current && !choices.includes(current) ? [current, ...choices] : choices;
 }
 
 /** The day of an instant, in the zone: "2 Dec 2026". Empty values read as "—". */

@@ -40,5 +40,11 @@ describe("dates as Rigline shows them", () => {
     expect(choices[0]!.startsWith("Australia/")).toBe(true);
     expect(choices).toContain("Australia/Perth");
     expect(choices).toContain("Pacific/Auckland");
+    expect(choices).toContain("UTC");
+    expect(new Set(choices).size).toBe(choices.length);
+    // A valid alias the organisation already has stays selectable.
+    expect(isTimeZone("Australia/Canberra")).toBe(true);
+    expect(timeZoneChoices("Australia/Canberra")[0]).toBe("Australia/Canberra");
+    expect(timeZoneChoices("Australia/Darwin")).toEqual(choices);
   });
 });

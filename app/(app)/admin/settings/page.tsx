@@ -18,7 +18,7 @@ export default async function SettingsPage() {
       {readOnly && <p className="text-muted">Only an administrator can change these.</p>}
       <Card>
         <CardBody>
-          <SettingsForm settings={settings} readOnly={readOnly} timeZones={timeZoneChoices()} />
+          <SettingsForm settings={settings} readOnly={readOnly} timeZones={timeZoneChoices(settings.timeZone)} />
         </CardBody>
       </Card>
     </div>
