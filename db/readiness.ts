@@ -177,9 +177,17 @@ export async function readinessStatesFor(db: DbOrTx, actor: Actor, vehicleIds: r
  * counted: they are out of the fleet). For the manager's home page and the daily snapshot.
  */
 export async function fleetReadinessCounts(db: DbOrTx, actor: Actor, now: Date = new Date()): Promise<ReadinessCounts> {
-  const counts: Record<ReadinessState, number> = { ready: 0, limited: 0, not_ready: 0 };
+  return readinessCountsOf(await fleetReadinessStates(db, actor, now));
+}
+
+/** Each vehicle's readiness state (retired ones left out), in brief, in fleet-number order. */
+export async function fleetReadinessStates(db: DbOrTx, actor: Actor, now: Date = new Date()): Promise<Map<string, ReadinessState>> {
   const { details } = await loadFleetVarianceFigures(db, actor, {}, now);
-  const states = await readinessStatesFromFigures(db, actor, details, now);
+  return readinessStatesFromFigures(db, actor, details, now);
+}
+
+export function readinessCountsOf(states: ReadonlyMap<string, ReadinessState>): ReadinessCounts {
+  const counts: Record<ReadinessState, number> = { ready: 0, limited: 0, not_ready: 0 };
   for (const state of states.values()) counts[state] += 1;
   return { ready: counts.ready, limited: counts.limited, notReady: counts.not_ready, total: states.size };
 }

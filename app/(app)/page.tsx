@@ -7,7 +7,7 @@ import { db } from "@/db/client";
 import { budgetsAgainstActual } from "@/db/costs";
 import { listJobRows } from "@/db/jobs";
 import { contractorCounts, managerQueues, myOpenDefects, outboxCounts, peopleCounts, quoteCounts, spendSince } from "@/db/landing";
-import { fleetReadinessCounts, loadFleetReadiness, readinessByVehicle } from "@/db/readiness";
+import { fleetReadinessStates, readinessByVehicle, readinessCountsOf } from "@/db/readiness";
 import { countVehiclesByState, listVehicleSummaries } from "@/db/vehicles";
 import { requireUser } from "@/lib/server/guard";
 import type { SignedIn } from "@/lib/server/session";
@@ -37,14 +37,17 @@ export default async function HomePage() {
 
 async function ManagerHome({ user }: { user: SignedIn }) {
   const now = new Date();
-  const [byState, quotesByStatus, queues, readiness, fleet] = await Promise.all([
+  const [byState, quotesByStatus, queues, states] = await Promise.all([
     countVehiclesByState(db(), user),
     quoteCounts(db(), user),
     managerQueues(db(), user),
-    fleetReadinessCounts(db(), user, now),
-    loadFleetReadiness(db(), user, now),
+    fleetReadinessStates(db(), user, now),
   ]);
-  const notReady = fleet.filter((v) => v.state === "not_ready").slice(0, 12);
+  const readiness = readinessCountsOf(states);
+  // The states come in brief for the whole fleet; only the vehicles listed are judged in full, for their reasons.
+  const notReadyIds = [...states].filter(([, state]) => state === "not_ready").slice(0, 12).map(([id]) => id);
+  const judged = await readinessByVehicle(db(), user, notReadyIds, now);
+  const notReady = notReadyIds.map((id) => judged.get(id)).filter((v) => v !== undefined);
   return (
     <div className="flex flex-col gap-6">
       <PageHeader title={`Good day, ${user.name.split(" ")[0]}`} question="What needs my decision, and which vehicles are not ready?" />

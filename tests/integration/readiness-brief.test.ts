@@ -1,6 +1,6 @@
 import { and, eq, inArray, isNull } from "drizzle-orm";
 import { describe, expect, it } from "vitest";
-import { fleetReadinessCounts, loadFleetReadiness, readinessByVehicle, readinessStatesFor } from "@/db/readiness";
+import { fleetReadinessCounts, fleetReadinessStates, loadFleetReadiness, readinessByVehicle, readinessStatesFor } from "@/db/readiness";
 import { defects, editionLines, fitments, vehicles, vehicleVarianceSummaries } from "@/db/schema";
 import type { Actor } from "@/lib/permissions";
 import { useTestDatabase } from "../helpers/db";
@@ -97,6 +97,16 @@ describe("readiness in brief equals the full judgement", () => {
     await database.update(editionLines).set({ expiryMonths: 1 }).where(inArray(editionLines.id, lines.map((l) => l.id)));
     await expectBriefAsFull();
     await expectBriefAsFull(manager, new Date(Date.now() + 40 * DAY_MS));
+  });
+});
+
+describe("the home page's list of vehicles not ready", () => {
+  it("names the same vehicles, in the same fleet-number order, as the full judgement", async () => {
+    const now = new Date();
+    const full = (await loadFleetReadiness(database, manager, now)).filter((r) => r.state === "not_ready");
+    const brief = [...(await fleetReadinessStates(database, manager, now))].filter(([, state]) => state === "not_ready").map(([id]) => id);
+    expect(brief).toEqual(full.map((r) => r.vehicleId));
+    expect(brief.length).toBeGreaterThan(0);
   });
 });
 
