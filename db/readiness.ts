@@ -4,7 +4,9 @@ import { defectTitle } from "@/lib/defects";
 import {
   earliestExpiry,
   expiringItemsOf,
+  nextReadinessChange,
   readinessStateOf,
+  type ReadinessFacts,
   tripReadiness,
   type ExpiringItem,
   type OpenDefect,
@@ -118,9 +120,13 @@ type BriefRow = [id: string, state: VehicleFacts["state"], registrationExpiry: n
  * edition have no summary: their fitments' expiries are read with the full loader (they carry
  * no edition lines, so that is cheap).
  */
-export async function readinessStatesFromFigures(db: DbOrTx, actor: Actor, figures: readonly VehicleVarianceFigures[], now: Date): Promise<Map<string, ReadinessState>> {
+export async function readinessStatesFromFigures(db: DbOrTx, actor: Actor, figures: readonly VehicleVarianceFigures[], now: Date): Promise<ReadinessStates> {
   const out = new Map<string, ReadinessState>();
-  if (figures.length === 0) return out;
+  let validUntil: number | null = null;
+  const holdUntil = (at: number | null) => {
+    if (at !== null && (validUntil === null || at < validUntil)) validUntil = at;
+  };
+  if (figures.length === 0) return { byVehicle: out, validUntil };
   const ids = figures.map((f) => f.vehicleId);
   const withoutEdition = figures.filter((f) => f.readinessFacts === null).map((f) => f.vehicleId);
   const open = sql.join(OPEN_STATES.map((s) => sql`${s}`), sql`, `);
@@ -149,27 +155,28 @@ export async function readinessStatesFromFigures(db: DbOrTx, actor: Actor, figur
     const fitted = f.readinessFacts ? f.readinessFacts.earliestExpiryMs : (fitmentExpiry.get(f.vehicleId) ?? null);
     const earliest = [fitted, registrationExpiry].filter((t): t is number => t !== null);
     const s = f.summary;
-    out.set(
-      f.vehicleId,
-      readinessStateOf(
-        {
-          vehicleState,
-          stopDefects,
-          beforeTripDefects,
-          criticalGaps: f.readinessFacts?.criticalGaps ?? 0,
-          limitingLines: s ? s.short + s.offSpec + s.unproven + s.prohibitedFitted : 0,
-          earliestExpiry: earliest.length ? new Date(Math.min(...earliest)) : null,
-        },
-        now,
-      ),
-    );
+    const facts: ReadinessFacts = {
+      vehicleState,
+      stopDefects,
+      beforeTripDefects,
+      criticalGaps: f.readinessFacts?.criticalGaps ?? 0,
+      limitingLines: s ? s.short + s.offSpec + s.unproven + s.prohibitedFitted : 0,
+      earliestExpiry: earliest.length ? new Date(Math.min(...earliest)) : null,
+    };
+    out.set(f.vehicleId, readinessStateOf(facts, now));
+    // Time turns a state through the variance (a fitment or concession lapsing) or an expiry nearing.
+    holdUntil(f.validUntil);
+    holdUntil(nextReadinessChange(facts, now));
   }
-  return out;
+  return { byVehicle: out, validUntil };
 }
+
+/** Each vehicle's readiness state, and the first instant at which time alone could turn one. */
+export type ReadinessStates = { byVehicle: Map<string, ReadinessState>; validUntil: number | null };
 
 /** The readiness state of each of the given vehicles the actor may see (ids it may not see are absent). */
 export async function readinessStatesFor(db: DbOrTx, actor: Actor, vehicleIds: readonly string[], now: Date = new Date()): Promise<Map<string, ReadinessState>> {
-  return readinessStatesFromFigures(db, actor, await varianceFiguresFor(db, actor, vehicleIds, now), now);
+  return (await readinessStatesFromFigures(db, actor, await varianceFiguresFor(db, actor, vehicleIds, now), now)).byVehicle;
 }
 
 /**
@@ -183,7 +190,7 @@ export async function fleetReadinessCounts(db: DbOrTx, actor: Actor, now: Date =
 /** Each vehicle's readiness state (retired ones left out), in brief, in fleet-number order. */
 export async function fleetReadinessStates(db: DbOrTx, actor: Actor, now: Date = new Date()): Promise<Map<string, ReadinessState>> {
   const { details } = await loadFleetVarianceFigures(db, actor, {}, now);
-  return readinessStatesFromFigures(db, actor, details, now);
+  return (await readinessStatesFromFigures(db, actor, details, now)).byVehicle;
 }
 
 export function readinessCountsOf(states: ReadonlyMap<string, ReadinessState>): ReadinessCounts {

@@ -9,10 +9,10 @@ import { computeRegisterPage, type RegisterPage, type VehicleListParams } from "
  * Register pages are read far more often than the fleet changes (every open register refetches
  * its page), so each server process keeps the pages it computed, for the register revision they
  * were computed at. Triggers raise that revision with every change to anything a page shows or
- * filters by (migration 0007), in this process or any other using the same database, so a kept
- * page is served only while nothing it shows has changed, and only until the first instant time
- * alone could change it. Pages filtered by trip readiness are not kept: readiness also turns
- * with defects, checks and document expiry dates.
+ * filters by (migrations 0007 and 0010: defects too, for the readiness filter), in this process
+ * or any other using the same database, so a kept page is served only while nothing it shows
+ * has changed, and only until the first instant time alone could change it (a variance status
+ * or, when filtered by it, a readiness state turning as something expires).
  */
 const pagesByDatabase = new WeakMap<Database, RevisionCache<RegisterPage>>();
 
@@ -54,7 +54,6 @@ function pageKey(actor: Actor, p: VehicleListParams): string {
  * The page returned may be shared with other requests: treat it as read-only.
  */
 export async function registerPage(database: Database, actor: Actor, p: VehicleListParams, now: Date): Promise<RegisterPage> {
-  if (p.readiness) return (await computeRegisterPage(database, actor, p, now)).page;
   const nowMs = now.getTime();
   const pages = pagesOf(database);
   const key = pageKey(actor, p);

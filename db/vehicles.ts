@@ -238,6 +238,8 @@ export async function computeRegisterPage(
   let total: number;
   let pageRows: RegisterDbRow[];
   let statuses: VarianceStatuses;
+  /** When time alone could turn the page: a variance status, or (filtered by it) a readiness state. */
+  let validUntil: number | null;
   let page = p.page;
 
   if (p.variance === "meets_standard" || p.variance === "gaps" || p.readiness) {
@@ -253,9 +255,10 @@ export async function computeRegisterPage(
     statuses = statusesOf(figures);
     // Trip readiness (variance, defects, grounding, expiries) is judged in brief from the same figures.
     const readiness = p.readiness ? await readinessStatesFromFigures(db, actor, figures, now) : null;
+    validUntil = readiness ? earliestOf(statuses.validUntil, readiness.validUntil) : statuses.validUntil;
     const matched = candidates
       .filter((c) => (p.variance === "meets_standard" || p.variance === "gaps" ? statuses.byVehicle.get(c.id) === p.variance : true))
-      .filter((c) => (readiness ? readiness.get(c.id) === p.readiness : true))
+      .filter((c) => (readiness ? readiness.byVehicle.get(c.id) === p.readiness : true))
       .map((c) => c.id);
     total = matched.length;
     page = clampPage(page, total, p.pageSize);
@@ -277,6 +280,7 @@ export async function computeRegisterPage(
       .offset((page - 1) * p.pageSize);
     const withEdition = pageRows.filter((r) => r.editionId !== null).map((r) => r.id);
     statuses = await varianceStatusByVehicle(db, actor, withEdition, now);
+    validUntil = statuses.validUntil;
   }
 
   const ids = pageRows.map((r) => r.id);
@@ -314,7 +318,11 @@ export async function computeRegisterPage(
     variance: r.editionId ? (statuses.byVehicle.get(r.id) ?? "gaps") : "no_edition",
     drivers: driversOf.get(r.id) ?? [],
   }));
-  return { page: { items, page, pageSize: p.pageSize, total, pageCount: Math.ceil(total / p.pageSize) }, validUntil: statuses.validUntil };
+  return { page: { items, page, pageSize: p.pageSize, total, pageCount: Math.ceil(total / p.pageSize) }, validUntil };
+}
+
+function earliestOf(a: number | null, b: number | null): number | null {
+  return a === null ? b : b === null ? a : Math.min(a, b);
 }
 
 function clampPage(page: number, total: number, pageSize: number): number {

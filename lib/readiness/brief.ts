@@ -52,6 +52,20 @@ export function readinessFactsOf(input: TripReadinessInput): ReadinessFacts {
   };
 }
 
+/**
+ * The first instant after `now` at which time alone could turn the state: the earliest expiry
+ * coming within the look-ahead, or passing. Null when nothing is due.
+ */
+export function nextReadinessChange(facts: Pick<ReadinessFacts, "earliestExpiry">, now: Date, soonDays = DEFAULT_SOON_DAYS): number | null {
+  if (facts.earliestExpiry === null) return null;
+  const expiry = facts.earliestExpiry.getTime();
+  const nowMs = now.getTime();
+  // readinessStateOf: limited once leftMs <= soonDays, not ready once leftMs <= 0; the state
+  // turns at the first millisecond each holds.
+  for (const at of [expiry - soonDays * DAY_MS, expiry]) if (at > nowMs) return at;
+  return null;
+}
+
 /** The readiness state from its facts at `now`: the same state tripReadiness gives. */
 export function readinessStateOf(facts: ReadinessFacts, now: Date, soonDays = DEFAULT_SOON_DAYS): ReadinessState {
   const leftMs = facts.earliestExpiry === null ? Infinity : facts.earliestExpiry.getTime() - now.getTime();

@@ -8,7 +8,7 @@ export {
   VEHICLE_STATES,
 } from "./readiness";
 export { addMonths, expiringItemsOf } from "./expiry";
-export { criticalGapCount, earliestExpiry, readinessFactsOf, readinessStateOf, type ReadinessFacts } from "./brief";
+export { criticalGapCount, earliestExpiry, nextReadinessChange, readinessFactsOf, readinessStateOf, type ReadinessFacts } from "./brief";
 export type {
   DefectSeverity,
   ExpiringItem,

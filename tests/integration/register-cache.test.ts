@@ -11,6 +11,7 @@ import { clearRegisterPages, readRegisterRevision, registerPage } from "@/db/reg
 import {
   concessions,
   contractorFirms,
+  defects,
   depots,
   editionLines,
   editions,
@@ -43,6 +44,7 @@ const manager = await signedInAs(database, "manager@mirrabel-health.example");
 const contractor = await signedInAs(database, "contractor@tallowbark-fitout.example");
 const FIRST_PAGE: VehicleListParams = { page: 1, pageSize: 25, sort: "fleetNumber", dir: "asc" };
 const HOUR_MS = 3_600_000;
+const DAY_MS = 24 * HOUR_MS;
 
 const vehicleOf = async (fleetNumber: string) =>
   (await database.query.vehicles.findFirst({ where: and(eq(vehicles.orgId, manager.orgId), eq(vehicles.fleetNumber, fleetNumber)) }))!;
@@ -98,10 +100,35 @@ describe("a kept register page", () => {
     expect(contractors.total).toBeLessThan(managers.total);
   });
 
-  it("is not kept when filtered by trip readiness (defects, checks and document dates turn it too)", async () => {
-    const params: VehicleListParams = { ...FIRST_PAGE, readiness: "not_ready" };
-    await expectServedCurrent(manager, params);
-    expect(await statementsDuring(() => registerPage(database, manager, params, new Date()))).toBeGreaterThan(1);
+  it("filtered by trip readiness is kept too, and a defect raised turns it at once", async () => {
+    const params: VehicleListParams = { ...FIRST_PAGE, pageSize: 100, readiness: "ready" };
+    const before = await expectServedCurrent(manager, params);
+    expect(await statementsDuring(() => registerPage(database, manager, params, new Date()))).toBe(1);
+    const vehicle = before.items[0]!;
+    await database.insert(defects).values({
+      orgId: manager.orgId,
+      vehicleId: vehicle.id,
+      clientId: crypto.randomUUID(),
+      reportedBy: manager.userId,
+      severity: "stop",
+      category: "brakes",
+      description: "Pedal sinks to the floor",
+    });
+    const after = await expectServedCurrent(manager, params);
+    expect(after.items.map((i) => i.id)).not.toContain(vehicle.id);
+  });
+
+  it("filtered by trip readiness holds until an expiry comes within the look-ahead, then turns", async () => {
+    const params: VehicleListParams = { ...FIRST_PAGE, pageSize: 100, readiness: "ready" };
+    const now = new Date();
+    const vehicle = (await listVehiclesPage(database, manager, params, now)).items[0]!;
+    // Ready now; the registration runs out in 40 days, so the vehicle is limited from day 10 (30 days ahead, lib/readiness).
+    await database.update(vehicles).set({ registrationExpiry: new Date(now.getTime() + 40 * DAY_MS) }).where(eq(vehicles.id, vehicle.id));
+    expect((await expectServedCurrent(manager, params, now)).items.map((i) => i.id)).toContain(vehicle.id);
+    // An hour on, nothing in the demo fleet has come due: the kept page is served.
+    expect(await statementsDuring(() => registerPage(database, manager, params, new Date(now.getTime() + HOUR_MS)))).toBe(1);
+    const day11 = new Date(now.getTime() + 11 * DAY_MS);
+    expect((await expectServedCurrent(manager, params, day11)).items.map((i) => i.id)).not.toContain(vehicle.id);
   });
 
   it("is not served for an earlier instant than it was computed for", async () => {
@@ -212,7 +239,7 @@ describe("after a write to anything a page shows, the page served is the page co
   });
 
   it("every table a page reads has its triggers (insert, update, delete)", async () => {
-    const tables = ["vehicles", "platforms", "depots", "editions", "standards", "vehicle_drivers", "jobs", "job_offers", "fitments", "concessions", "evidence", "edition_lines", "line_dependencies"];
+    const tables = ["vehicles", "platforms", "depots", "editions", "standards", "vehicle_drivers", "jobs", "job_offers", "fitments", "concessions", "evidence", "edition_lines", "line_dependencies", "defects"];
     const triggers = await database.all<{ name: string; tbl_name: string }>(sql`select name, tbl_name from sqlite_master where type = 'trigger' and name like 'rr\\_%' escape '\\'`);
     for (const table of tables) {
       for (const event of ["insert", "update", "delete"]) expect(triggers).toContainEqual({ name: `rr_${table}_${event}`, tbl_name: table });

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { tripReadiness, VEHICLE_STATES, type ExpiringItem, type OpenDefect, type TripReadinessInput } from "@/lib/readiness";
-import { criticalGapCount, earliestExpiry, readinessFactsOf, readinessStateOf } from "@/lib/readiness/brief";
+import { criticalGapCount, earliestExpiry, nextReadinessChange, readinessFactsOf, readinessStateOf } from "@/lib/readiness/brief";
 import { vehicleVariance, type EditionLine, type Fitment } from "@/lib/variance";
 import { NOW, daysFromNow, fitment, line } from "../variance/fixtures";
 
@@ -82,5 +82,23 @@ describe("the facts", () => {
     expect(criticalGapCount(null)).toBe(0);
     expect(earliestExpiry(expirySets.soon!)).toEqual(daysFromNow(30));
     expect(earliestExpiry([])).toBeNull();
+  });
+});
+
+describe("when time alone turns the state", () => {
+  const facts = { vehicleState: "in_service" as const, stopDefects: 0, beforeTripDefects: 0, criticalGaps: 0, limitingLines: 0 };
+  it("at the look-ahead before the earliest expiry, then at the expiry itself, then never", () => {
+    const expiry = daysFromNow(45);
+    const f = { ...facts, earliestExpiry: expiry };
+    const soon = expiry.getTime() - 30 * 86_400_000;
+    expect(nextReadinessChange(f, NOW)).toBe(soon);
+    // The state holds up to the instant named and turns at it (readinessStateOf is the judge).
+    expect(readinessStateOf(f, new Date(soon - 1))).toBe("ready");
+    expect(readinessStateOf(f, new Date(soon))).toBe("limited");
+    expect(nextReadinessChange(f, new Date(soon))).toBe(expiry.getTime());
+    expect(readinessStateOf(f, new Date(expiry.getTime() - 1))).toBe("limited");
+    expect(readinessStateOf(f, expiry)).toBe("not_ready");
+    expect(nextReadinessChange(f, expiry)).toBeNull();
+    expect(nextReadinessChange({ earliestExpiry: null }, NOW)).toBeNull();
   });
 });
