@@ -17,7 +17,7 @@ import type { DbOrTx } from "./client";
 import { defects, vehicles } from "./schema";
 import { namedVehicles, vehicleScope } from "./scope";
 import { loadFleetVariance, loadVariancesFor, loadVehicleVariance, type LoadedVehicleVariance, type VarianceFilter } from "./variance";
-import { loadFleetVarianceFigures, varianceFiguresFor, type VehicleVarianceFigures } from "./variance-summary";
+import { loadFleetVarianceFigures, nextChangeAfter, varianceFiguresFor, type VehicleVarianceFigures } from "./variance-summary";
 
 /**
  * Trip readiness read from the database: each vehicle's variance (db/variance.ts), its open
@@ -148,6 +148,8 @@ export async function readinessStatesFromFigures(db: DbOrTx, actor: Actor, figur
   const fitmentExpiry = new Map<string, number | null>(
     unsummarised.map((l) => [l.vehicleId, earliestExpiry(expiringItemsOf(l.lines, l.fitments, { registration: null, registrationExpiry: null }))?.getTime() ?? null]),
   );
+  // Their fitments also come and go by date (fitted later, removed later), as a summary's valid_until would say.
+  for (const l of unsummarised) holdUntil(nextChangeAfter(l, now.getTime()));
   for (const f of figures) {
     const row = rows.get(f.vehicleId);
     if (!row) continue;
