@@ -1,7 +1,8 @@
 import { mkdtempSync, rmSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
-import { afterAll } from "vitest";
+import type { Client } from "@libsql/client";
+import { afterAll, vi } from "vitest";
 import { makeDb, openClient, prepareLocal, setDbForTests, type Database } from "@/db/client";
 import { migrateDatabase } from "@/db/migrate";
 import { seedDemo } from "@/db/seed";
@@ -24,4 +25,16 @@ export async function useTestDatabase(options: { seed?: boolean } = {}): Promise
     rmSync(dir, { recursive: true, force: true });
   });
   return database;
+}
+
+/** How many statements the database is sent while `run` runs. */
+export async function statementsDuring(database: Database, run: () => Promise<unknown>): Promise<number> {
+  const client = (database as unknown as { $client: Client }).$client;
+  const spy = vi.spyOn(client, "execute");
+  try {
+    await run();
+    return spy.mock.calls.length;
+  } finally {
+    spy.mockRestore();
+  }
 }

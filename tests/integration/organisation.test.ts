@@ -108,31 +108,23 @@ describe("depots and settings", () => {
     expect(error.details[0]?.field).toBe("code");
   });
 
+  const settings = {
+    name: "Mirrabel Remote Health Service",
+    approvalThreshold: "5000",
+    personMassKg: "80",
+    brakeWarningMarginKg: "500",
+    springSoftMarginKg: "0",
+    springStiffMarginKg: "500",
+    weighbridgeToleranceKg: "50",
+    gstMethod: "per-line",
+  };
+
   it("stores the approval threshold in integer cents", async () => {
-    const result = await execute(updateSettings, admin, {
-      name: "Mirrabel Remote Health Service",
-      approvalThreshold: "7,500.50",
-      personMassKg: "80",
-      brakeWarningMarginKg: "500",
-      springSoftMarginKg: "0",
-      springStiffMarginKg: "500",
-      weighbridgeToleranceKg: "50",
-      gstMethod: "per-line",
-    });
+    const result = await execute(updateSettings, admin, { ...settings, approvalThreshold: "7,500.50" });
     expect(result.approvalThresholdCents).toBe(750_050);
   });
 
   it("keeps the organisation's time zone, changes it to a known zone, and refuses an unknown one naming the field", async () => {
-    const settings = {
-      name: "Mirrabel Remote Health Service",
-      approvalThreshold: "5000",
-      personMassKg: "80",
-      brakeWarningMarginKg: "500",
-      springSoftMarginKg: "0",
-      springStiffMarginKg: "500",
-      weighbridgeToleranceKg: "50",
-      gstMethod: "per-line",
-    };
     expect((await execute(updateSettings, admin, settings)).timeZone).toBe("Australia/Darwin");
     expect((await execute(updateSettings, admin, { ...settings, timeZone: "Australia/Brisbane" })).timeZone).toBe("Australia/Brisbane");
     expect((await signedInAs(database, "manager@mirrabel-health.example")).timeZone).toBe("Australia/Brisbane");

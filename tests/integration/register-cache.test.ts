@@ -1,4 +1,3 @@
-import type { Client } from "@libsql/client";
 import { and, eq, inArray, sql } from "drizzle-orm";
 import { beforeEach, describe, expect, it, vi } from "vitest";
 
@@ -31,7 +30,7 @@ import { listVehicles } from "@/lib/commands/vehicles";
 import { execute } from "@/lib/server/operation";
 import type { SignedIn } from "@/lib/server/session";
 import { GET as listRoute } from "@/app/api/vehicles/route";
-import { useTestDatabase } from "../helpers/db";
+import { statementsDuring as statementsSent, useTestDatabase } from "../helpers/db";
 import { callRoute, requestUser } from "../helpers/route";
 import { signedInAs } from "../helpers/users";
 
@@ -58,16 +57,7 @@ async function expectServedCurrent(actor: SignedIn = manager, params: VehicleLis
 }
 
 /** Statements sent to the database while `run` runs. */
-async function statementsDuring(run: () => Promise<unknown>): Promise<number> {
-  const client = (database as unknown as { $client: Client }).$client;
-  const spy = vi.spyOn(client, "execute");
-  try {
-    await run();
-    return spy.mock.calls.length;
-  } finally {
-    spy.mockRestore();
-  }
-}
+const statementsDuring = (run: () => Promise<unknown>) => statementsSent(database, run);
 
 beforeEach(() => {
   clearRegisterPages(database);

@@ -1,11 +1,10 @@
-import type { Client } from "@libsql/client";
 import { eq } from "drizzle-orm";
-import { beforeAll, describe, expect, it, vi } from "vitest";
+import { beforeAll, describe, expect, it } from "vitest";
 import { clearRegisterPages } from "@/db/register-cache";
 import { editionLines, editions, fitments, standards, vehicles } from "@/db/schema";
 import { listVehicles } from "@/lib/commands/vehicles";
 import { execute } from "@/lib/server/operation";
-import { useTestDatabase } from "../helpers/db";
+import { statementsDuring as statementsSent, useTestDatabase } from "../helpers/db";
 import { signedInAs } from "../helpers/users";
 
 const database = await useTestDatabase();
@@ -39,14 +38,7 @@ beforeAll(async () => {
 /** Statements sent to the database while `run` runs, computing every page afresh. */
 async function statementsDuring(run: () => Promise<unknown>): Promise<number> {
   clearRegisterPages(database);
-  const client = (database as unknown as { $client: Client }).$client;
-  const spy = vi.spyOn(client, "execute");
-  try {
-    await run();
-    return spy.mock.calls.length;
-  } finally {
-    spy.mockRestore();
-  }
+  return statementsSent(database, run);
 }
 
 describe("the register reads variance in one batch per page", () => {
