@@ -31,6 +31,11 @@ export class RevisionCache<V extends object> {
   get(key: string, revision: number, nowMs: number): V | undefined {
     const entry = this.entries.get(key);
     if (!entry) return undefined;
+    // Revisions only rise: an entry of an older one can never be served again, so it goes now.
+    if (entry.revision < revision) {
+      this.entries.delete(key);
+      return undefined;
+    }
     if (entry.revision !== revision || nowMs < entry.fromMs || (entry.untilMs !== null && nowMs >= entry.untilMs)) return undefined;
     return entry.value;
   }

@@ -10,9 +10,13 @@ describe("RevisionCache", () => {
     const value = { rows: [1, 2] };
     cache.set("page-1", 7, T, null, value);
     expect(cache.get("page-1", 7, T)).toBe(value);
-    expect(cache.get("page-1", 8, T)).toBeUndefined();
     expect(cache.get("page-1", 6, T)).toBeUndefined();
     expect(cache.get("page-2", 7, T)).toBeUndefined();
+    expect(cache.size).toBe(1);
+    // Asked for at a later revision, the older entry is let go; it could never be served again.
+    expect(cache.get("page-1", 8, T)).toBeUndefined();
+    expect(cache.size).toBe(0);
+    expect(cache.get("page-1", 7, T)).toBeUndefined();
   });
 
   it("serves a value from the instant it was computed for until (not at) its valid-until instant", () => {
