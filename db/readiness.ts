@@ -17,7 +17,7 @@ import type { DbOrTx } from "./client";
 import { defects, vehicles } from "./schema";
 import { namedVehicles, vehicleScope } from "./scope";
 import { loadFleetVariance, loadVariancesFor, loadVehicleVariance, type LoadedVehicleVariance, type VarianceFilter } from "./variance";
-import { loadFleetVarianceFigures, nextChangeAfter, varianceFiguresFor, type VehicleVarianceFigures } from "./variance-summary";
+import { loadFleetVarianceFigures, nextChangeAfter, type VehicleVarianceFigures } from "./variance-summary";
 
 /**
  * Trip readiness read from the database: each vehicle's variance (db/variance.ts), its open
@@ -175,11 +175,6 @@ export async function readinessStatesFromFigures(db: DbOrTx, actor: Actor, figur
 
 /** Each vehicle's readiness state, and the first instant at which time alone could turn one. */
 export type ReadinessStates = { byVehicle: Map<string, ReadinessState>; validUntil: number | null };
-
-/** The readiness state of each of the given vehicles the actor may see (ids it may not see are absent). */
-export async function readinessStatesFor(db: DbOrTx, actor: Actor, vehicleIds: readonly string[], now: Date = new Date()): Promise<Map<string, ReadinessState>> {
-  return (await readinessStatesFromFigures(db, actor, await varianceFiguresFor(db, actor, vehicleIds, now), now)).byVehicle;
-}
 
 /**
  * How many of the actor's vehicles are ready, limited or not ready (retired vehicles are not

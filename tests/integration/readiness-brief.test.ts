@@ -1,6 +1,7 @@
 import { and, eq, inArray, isNull } from "drizzle-orm";
 import { describe, expect, it } from "vitest";
-import { fleetReadinessCounts, fleetReadinessStates, loadFleetReadiness, readinessByVehicle, readinessStatesFor } from "@/db/readiness";
+import { fleetReadinessCounts, fleetReadinessStates, loadFleetReadiness, readinessByVehicle, readinessStatesFromFigures } from "@/db/readiness";
+import { varianceFiguresFor } from "@/db/variance-summary";
 import { defects, editionLines, fitments, vehicles, vehicleVarianceSummaries } from "@/db/schema";
 import type { Actor } from "@/lib/permissions";
 import { useTestDatabase } from "../helpers/db";
@@ -20,6 +21,11 @@ const DAY_MS = 86_400_000;
 const vehicleOf = async (fleetNumber: string) =>
   (await database.query.vehicles.findFirst({ where: and(eq(vehicles.orgId, manager.orgId), eq(vehicles.fleetNumber, fleetNumber)) }))!;
 
+/** The states in brief of the named vehicles, as the register's readiness filter reads them. */
+async function readinessStatesFor(actor: Actor, ids: string[], now: Date) {
+  return (await readinessStatesFromFigures(database, actor, await varianceFiguresFor(database, actor, ids, now), now)).byVehicle;
+}
+
 async function expectBriefAsFull(actor: Actor = manager, now = new Date()) {
   const full = await loadFleetReadiness(database, actor, now);
   const counts = await fleetReadinessCounts(database, actor, now);
@@ -30,7 +36,7 @@ async function expectBriefAsFull(actor: Actor = manager, now = new Date()) {
     total: full.length,
   });
   const everyone = await loadFleetReadiness(database, actor, now, { includeRetired: true });
-  const states = await readinessStatesFor(database, actor, everyone.map((r) => r.vehicleId), now);
+  const states = await readinessStatesFor(actor, everyone.map((r) => r.vehicleId), now);
   expect(Object.fromEntries(states)).toEqual(Object.fromEntries(everyone.map((r) => [r.vehicleId, r.state])));
   return everyone;
 }
@@ -88,7 +94,7 @@ describe("readiness in brief equals the full judgement", () => {
     const noEdition = (await database.select().from(vehicles).where(and(eq(vehicles.orgId, manager.orgId), isNull(vehicles.editionId))))[0]!;
     await database.insert(fitments).values({ orgId: manager.orgId, vehicleId: noEdition.id, label: "Snatch strap", fittedAt: new Date(Date.now() - 30 * DAY_MS), expiresAt: new Date(Date.now() + 12 * DAY_MS) });
     await expectBriefAsFull();
-    expect((await readinessStatesFor(database, manager, [noEdition.id], new Date())).get(noEdition.id)).not.toBe("ready");
+    expect((await readinessStatesFor(manager, [noEdition.id], new Date())).get(noEdition.id)).not.toBe("ready");
   });
 
   it("after an edition line's expiry in months changes (the fitments' dates then follow from it)", async () => {
